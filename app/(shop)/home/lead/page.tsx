@@ -1,0 +1,66 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { PageHeader } from "@/components/page-header";
+import { PinStatus } from "@/components/pin-status";
+import { StatusBadge } from "@/components/status-badge";
+import { ROLE_LABELS, ROLES } from "@/lib/authz";
+import { requireShop } from "@/lib/auth/context";
+import { myPinState, shopHeadcount } from "@/db/queries/me";
+import { listOpenInvitations, shopActivityPage } from "@/db/queries/people";
+import { describeActivity } from "@/lib/activity";
+
+export const metadata: Metadata = { title: "Lead desk" };
+
+export default async function LeadHome() {
+  const ctx = await requireShop("people:manage");
+  const [pin, heads, invitations, activity] = await Promise.all([
+    myPinState(ctx.shopId, ctx.userId),
+    shopHeadcount(ctx.shopId),
+    listOpenInvitations(ctx.shopId),
+    shopActivityPage(ctx.shopId, 8),
+  ]);
+  return (
+    <>
+      <PageHeader title="Lead desk" lead={`${ctx.shop.name}: people, roles and the shop's record.`}>
+        <Link href="/people" className="btn btn-primary">Manage people</Link>
+      </PageHeader>
+      <div className="grid gap-4 md:grid-cols-3">
+        <section className="card p-4 md:col-span-2" aria-labelledby="crew-h">
+          <h2 id="crew-h" className="font-bold">Crew by role</h2>
+          <dl className="mt-3 grid grid-cols-2 gap-3 sm:grid-cols-4">
+            {ROLES.map((r) => (
+              <div key={r} className="rounded-md bg-graphite-50 p-3">
+                <dt className="text-sm text-graphite-600">{ROLE_LABELS[r]}</dt>
+                <dd className="figures text-2xl font-semibold" data-testid={`count-${r}`}>{heads.counts[r] ?? 0}</dd>
+              </div>
+            ))}
+          </dl>
+          <p className="mt-3">
+            {heads.withoutPin > 0 ? (
+              <StatusBadge tone="warn">{heads.withoutPin} active {heads.withoutPin === 1 ? "person has" : "people have"} no signing PIN</StatusBadge>
+            ) : (
+              <StatusBadge tone="pass">Everyone active has a signing PIN</StatusBadge>
+            )}
+          </p>
+          <p className="mt-2 text-sm text-graphite-600">{invitations.length} open {invitations.length === 1 ? "invitation" : "invitations"}.</p>
+        </section>
+        <PinStatus hasPin={pin.hasPin} locked={pin.locked} />
+      </div>
+      <section className="card mt-4 p-4" aria-labelledby="act-h">
+        <h2 id="act-h" className="font-bold">Recent shop activity</h2>
+        {activity.length === 0 ? (
+          <p className="mt-2 text-graphite-600">Nothing yet.</p>
+        ) : (
+          <ol className="mt-2 divide-y divide-graphite-100">
+            {activity.map((a) => (
+              <li key={a.id} className="flex flex-wrap justify-between gap-2 py-2">
+                <span>{describeActivity(a.action, a.detail, a.actorName)}</span>
+                <time className="figures text-sm text-graphite-600" dateTime={a.at.toISOString()}>{a.at.toISOString().slice(0, 16).replace("T", " ")} UTC</time>
+              </li>
+            ))}
+          </ol>
+        )}
+      </section>
+    </>
+  );
+}

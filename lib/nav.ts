@@ -1,0 +1,19 @@
+import { can, type Action } from "@/lib/authz";
+
+export type NavItem = { href: string; label: string; action: Action; roles?: string[]; localMailOnly?: boolean };
+
+// Role-aware navigation: a person sees the desks of every role they hold, and the tools their roles may use.
+export const NAV: NavItem[] = [
+  { href: "/home/lead", label: "Lead desk", action: "people:manage", roles: ["lead"] },
+  { href: "/home/welder", label: "Bench", action: "step:sign", roles: ["welder"] },
+  { href: "/home/inspector", label: "Inspection desk", action: "inspection:sign", roles: ["inspector"] },
+  { href: "/home/auditor", label: "Record lookup", action: "audit:search", roles: ["auditor"] },
+  { href: "/people", label: "People", action: "people:read" },
+  { href: "/mailbox", label: "Local mailbox", action: "mailbox:read", localMailOnly: true },
+];
+
+export function navFor(roles: readonly string[], localMailbox: boolean): NavItem[] {
+  return NAV.filter(
+    (item) => can(roles, item.action) && (!item.roles || item.roles.some((r) => roles.includes(r))) && (!item.localMailOnly || localMailbox),
+  );
+}

@@ -1,0 +1,21 @@
+import { z } from "zod";
+import { rolesField } from "./auth";
+
+export const peopleQuerySchema = z.object({
+  q: z.string().trim().max(100).optional(),
+  page: z.coerce.number().int().min(1).max(10_000).default(1),
+  pageSize: z.coerce.number().int().min(1).max(100).default(20),
+  inactive: z.enum(["0", "1"]).default("0"),
+});
+
+export const personPatchSchema = z
+  .object({ roles: rolesField.optional(), active: z.boolean().optional() })
+  .strict()
+  .refine((v) => v.roles !== undefined || v.active !== undefined, { message: "Send roles, active or both." });
+
+export const acceptInviteApiSchema = z.object({
+  name: z.string().trim().min(2, "At least 2 characters.").max(80),
+  password: z.string().min(10, "At least 10 characters.").max(128),
+});
+
+export const pinApiSchema = z.object({ password: z.string().min(1, "Enter your account password."), pin: z.string().regex(/^\d{4,8}$/, "A PIN is 4 to 8 digits, nothing else.") });

@@ -1,0 +1,73 @@
+// Talks to the app that `npm test` started (BASE_URL) and to its throwaway database.
+import { randomInt } from "node:crypto";
+import pg from "pg";
+
+export const BASE_URL = process.env.GUSSET_TEST_URL ?? "http://127.0.0.1:3100";
+export const DEMO_PASSWORD = "demo-gusset-2026";
+
+// Each caller gets its own client address, so sign-in rate limits of one test never leak into another.
+export function freshIp() {
+  return `10.${randomInt(0, 255)}.${randomInt(0, 255)}.${randomInt(1, 254)}`;
+}
+
+export type Session = { cookie: string; ip: string };
+
+export async function signIn(email: string, password = DEMO_PASSWORD, ip = freshIp()) {
+  const res = await fetch(`${BASE_URL}/api/auth/sign-in/email`, {
+    method: "POST",
+    headers: { "content-type": "application/json", origin: BASE_URL, "x-forwarded-for": ip },
+    body: JSON.stringify({ email, password }),
+  });
+  const setCookies = res.headers.getSetCookie();
+  const cookie = setCookies.map((c) => c.split(";")[0]).join("; ");
+  return { res, session: { cookie, ip } as Session, setCookies };
+}
+
+export async function session(email: string): Promise<Session> {
+  const { res, session: s } = await signIn(email);
+  if (res.status !== 200) throw new Error(`sign-in of ${email} answered ${res.status}: ${await res.text()}`);
+  return s;
+}
+
+export async function api(path: string, opts: { session?: Session; method?: string; body?: unknown; headers?: Record<string, string> } = {}) {
+  const headers: Record<string, string> = { origin: BASE_URL, ...opts.headers };
+  if (opts.session) {
+    headers.cookie = opts.session.cookie;
+    headers["x-forwarded-for"] = opts.session.ip;
+  }
+  if (opts.body !== undefined) headers["content-type"] = "application/json";
+  const res = await fetch(`${BASE_URL}${path}`, {
+    method: opts.method ?? (opts.body === undefined ? "GET" : "POST"),
+    headers,
+    body: opts.body === undefined ? undefined : typeof opts.body === "string" ? opts.body : JSON.stringify(opts.body),
+    redirect: "manual",
+  });
+  const text = await res.text();
+  let json: unknown = null;
+  try {
+    json = text ? JSON.parse(text) : null;
+  } catch {
+    json = null;
+  }
+  return { status: res.status, json: json as Record<string, any>, text, headers: res.headers };
+}
+
+export async function withDb<T>(fn: (client: pg.Client) => Promise<T>, url = process.env.DATABASE_URL): Promise<T> {
+  const client = new pg.Client({ connectionString: url });
+  await client.connect();
+  try {
+    return await fn(client);
+  } finally {
+    await client.end();
+  }
+}
+
+export async function waitFor<T>(probe: () => Promise<T | null | undefined>, timeoutMs = 10_000): Promise<T> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const value = await probe();
+    if (value) return value;
+    if (Date.now() > deadline) throw new Error("timed out waiting");
+    await new Promise((r) => setTimeout(r, 200));
+  }
+}
