@@ -1,0 +1,3 @@
+export * from "./dew-point";
+export * from "./dft";
+export * from "./schemas";

@@ -1,0 +1,4 @@
+export * from "./factors";
+export * from "./quantities";
+export * from "./format";
+export * from "./parse";
