@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { StatusBadge } from "./status-badge";
 
-export function PinStatus({ hasPin, locked }: { hasPin: boolean; locked: boolean }) {
+export function PinStatus({ hasPin, locked, showLink = true }: { hasPin: boolean; locked: boolean; showLink?: boolean }) {
   return (
     <section className="card p-4" aria-labelledby="pin-h">
       <h2 id="pin-h" className="font-bold">Signing PIN</h2>
@@ -14,7 +14,7 @@ export function PinStatus({ hasPin, locked }: { hasPin: boolean; locked: boolean
           <StatusBadge tone="warn">Not set: you cannot sign steps yet</StatusBadge>
         )}
       </p>
-      <Link className="btn btn-quiet mt-3" href="/account">Change PIN</Link>
+      {showLink ? <Link className="btn btn-quiet mt-3" href="/account">Change PIN</Link> : null}
     </section>
   );
 }

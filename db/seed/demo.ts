@@ -22,6 +22,8 @@ export const DEMO_SHOPS = [
     people: [
       { email: "lead@saltpan.example", name: "Jo Vantreight", roles: ["lead"] },
       { email: "welder@saltpan.example", name: "Kit Amberley", roles: ["welder"] },
+      // An insurer's auditor who reads both shops' records: shows the shop switcher.
+      { email: "auditor@irongully.example", name: "Theo Marsh", roles: ["auditor"] },
     ],
   },
 ] as const;

@@ -10,6 +10,9 @@ import { log } from "./log";
 import { startLocalPostgres } from "./postgres";
 import { startMailCatcher, startObjectStore } from "./services";
 
+// The S3 SDK is pinned to a release that supports Node 20 (see STACK.md); its notice about later releases is noise here.
+process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ??= "true";
+
 export type StackOptions = {
   root: string;
   dataDir: string;

@@ -12,7 +12,7 @@ for (const [email, heading, name] of homes) {
     await signInAs(page, email);
     await expect(page.getByRole("heading", { level: 1, name: heading })).toBeVisible();
     await expect(page.getByTestId("account-menu")).toContainText(name);
-    await expect(page.getByTestId("shop-name")).toHaveText("Iron Gully 4x4 Fabrication");
+    await expect(page.getByRole("main")).toContainText("Iron Gully 4x4 Fabrication");
   });
 }
 
@@ -46,4 +46,13 @@ test("sign-out ends the session", async ({ page }) => {
   await expect(page).toHaveURL(/\/sign-in/);
   await page.goto("/home/lead");
   await expect(page).toHaveURL(/\/sign-in/);
+});
+
+test("a person in two shops switches between them", async ({ page }) => {
+  await signInAs(page, "auditor@irongully.example");
+  await expect(page.getByRole("heading", { level: 1, name: "Record lookup" })).toBeVisible();
+  await expect(page.getByRole("main")).toContainText("Iron Gully 4x4 Fabrication");
+  await page.getByLabel("Shop").selectOption({ label: "Saltpan Chassis & Axle" });
+  await page.getByRole("button", { name: "Go" }).click();
+  await expect(page.getByRole("main")).toContainText("Saltpan Chassis & Axle");
 });

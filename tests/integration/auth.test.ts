@@ -84,3 +84,18 @@ describe("signed out", () => {
     expect(res.headers.get("location")).toContain("/sign-in");
   });
 });
+
+describe("several shops", () => {
+  it("a person in two shops works in one at a time; the header or cookie picks which", async () => {
+    const s = await session("auditor@irongully.example");
+    const first = await api("/api/me", { session: s });
+    expect(first.json.shops.map((x: { name: string }) => x.name).sort()).toEqual(["Iron Gully 4x4 Fabrication", "Saltpan Chassis & Axle"]);
+    const other = first.json.shops.find((x: { id: string }) => x.id !== first.json.shop.id);
+    const switched = await api("/api/me", { session: s, headers: { "x-gusset-shop": other.id } });
+    expect(switched.json.shop.id).toBe(other.id);
+    expect(switched.json.roles).toEqual(["auditor"]);
+    // A shop the person does not belong to is never selected.
+    const foreign = await api("/api/me", { session: s, headers: { "x-gusset-shop": "00000000-0000-4000-8000-000000000000" } });
+    expect(foreign.json.shop.id).toBe(first.json.shop.id);
+  });
+});

@@ -16,7 +16,7 @@ export default async function AccountPage() {
     <>
       <PageHeader title="Account" lead={`${ctx.user.name} · ${ctx.user.email} · ${ctx.roles.map((r) => ROLE_LABELS[r]).join(", ")} at ${ctx.shop.name}`} />
       <div className="grid gap-4 lg:grid-cols-3">
-        <PinStatus hasPin={pin.hasPin} locked={pin.locked} />
+        <PinStatus hasPin={pin.hasPin} locked={pin.locked} showLink={false} />
         <PinForm />
         <UnitsForm current={ctx.unitSystem} />
       </div>

@@ -8,7 +8,7 @@ export function RolesForm({ membershipId, roles, name }: { membershipId: string;
   const [state, action, pending] = useActionState(saveRoles, undefined);
   const error = state?.error ? Object.values(state.error).flat().filter(Boolean) as string[] : undefined;
   return (
-    <form action={action} className="space-y-1" aria-label={`Roles of ${name}`}>
+    <form action={action} className="min-w-[19rem] space-y-1" aria-label={`Roles of ${name}`}>
       <input type="hidden" name="membershipId" value={membershipId} />
       <div className="flex flex-wrap gap-1">
         {ROLES.map((r) => (
