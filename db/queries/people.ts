@@ -22,6 +22,19 @@ export type MemberRow = {
   joinedAt: Date;
 };
 
+// What a member row shows: never the PIN hash itself, only whether one is set or locked.
+const memberColumns = {
+  membershipId: membership.id,
+  userId: user.id,
+  name: user.name,
+  email: user.email,
+  roles: membership.roles,
+  active: membership.active,
+  hasPin: sql<boolean>`${membership.pinHash} is not null`,
+  pinLocked: sql<boolean>`${membership.pinLockedAt} is not null`,
+  joinedAt: membership.createdAt,
+};
+
 export async function listMembers(shopId: string, opts: { q?: string; page: number; pageSize: number; includeInactive: boolean }) {
   const filters = [eq(membership.shopId, shopId)];
   if (!opts.includeInactive) filters.push(eq(membership.active, true));
@@ -32,17 +45,7 @@ export async function listMembers(shopId: string, opts: { q?: string; page: numb
   const where = and(...filters);
   const [rows, [total]] = await Promise.all([
     db()
-      .select({
-        membershipId: membership.id,
-        userId: user.id,
-        name: user.name,
-        email: user.email,
-        roles: membership.roles,
-        active: membership.active,
-        hasPin: sql<boolean>`${membership.pinHash} is not null`,
-        pinLocked: sql<boolean>`${membership.pinLockedAt} is not null`,
-        joinedAt: membership.createdAt,
-      })
+      .select(memberColumns)
       .from(membership)
       .innerJoin(user, eq(user.id, membership.userId))
       .where(where)
@@ -262,17 +265,7 @@ export async function shopActivityPage(shopId: string, limit = 30) {
 
 export async function getMember(shopId: string, membershipId: string): Promise<MemberRow> {
   const [row] = await db()
-    .select({
-      membershipId: membership.id,
-      userId: user.id,
-      name: user.name,
-      email: user.email,
-      roles: membership.roles,
-      active: membership.active,
-      hasPin: sql<boolean>`${membership.pinHash} is not null`,
-      pinLocked: sql<boolean>`${membership.pinLockedAt} is not null`,
-      joinedAt: membership.createdAt,
-    })
+    .select(memberColumns)
     .from(membership)
     .innerJoin(user, eq(user.id, membership.userId))
     .where(and(eq(membership.id, membershipId), eq(membership.shopId, shopId)));
