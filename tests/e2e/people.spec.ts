@@ -1,0 +1,60 @@
+import { expect, signInAs, test } from "./support";
+
+test("a lead invites a welder; the mail shows in the local mailbox; the invitee joins and lands on the bench", async ({ page, browser }) => {
+  const email = `fitter-${Date.now()}@irongully.example`;
+  await signInAs(page, "lead@irongully.example");
+  await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "People" }).click();
+  const form = page.getByTestId("invite-form");
+  await form.getByLabel("E-mail").fill("not an address");
+  await form.getByRole("button", { name: "Send invitation" }).click();
+  await expect(form.getByText("That is not an e-mail address.")).toBeVisible();
+  await form.getByLabel("E-mail").fill(email);
+  await form.getByRole("button", { name: "Send invitation" }).click();
+  await expect(page.getByTestId("invite-ok")).toContainText(`Invitation sent to ${email}`);
+  await expect(page.getByTestId("open-invitations")).toContainText(email);
+
+  await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Local mailbox" }).click();
+  const mail = page.getByTestId("mailbox").locator("li").filter({ hasText: email }).first();
+  await expect(mail).toContainText("invited to Iron Gully 4x4 Fabrication");
+  await mail.locator("summary").click();
+  const text = await mail.locator("pre").innerText();
+  const link = /https?:\/\/\S+\/invite\/[A-Za-z0-9_-]+/.exec(text)?.[0];
+  expect(link).toBeTruthy();
+
+  const guest = await browser.newContext({ extraHTTPHeaders: { "x-forwarded-for": "10.77.1.2" } });
+  const invitee = await guest.newPage();
+  await invitee.goto(new URL(link!).pathname);
+  await expect(invitee.getByRole("heading", { name: "Join Iron Gully 4x4 Fabrication" })).toBeVisible();
+  await invitee.getByLabel("Your name as it appears on sign-offs").fill("Ari Fenwick");
+  await invitee.getByLabel("Choose a password (10+ characters)").fill("short");
+  await invitee.getByLabel("Password again").fill("different");
+  await invitee.getByRole("button", { name: "Join the shop" }).click();
+  await expect(invitee.getByText("At least 10 characters.")).toBeVisible();
+  await invitee.getByLabel("Choose a password (10+ characters)").fill("brackets-and-gussets");
+  await invitee.getByLabel("Password again").fill("brackets-and-gussets");
+  await invitee.getByRole("button", { name: "Join the shop" }).click();
+  await expect(invitee.getByTestId("accept-ok")).toBeVisible();
+  await invitee.getByRole("link", { name: "Go to sign-in" }).click();
+  await invitee.getByLabel("E-mail").fill(email);
+  await invitee.getByLabel("Password").fill("brackets-and-gussets");
+  await invitee.getByRole("button", { name: "Sign in" }).click();
+  await expect(invitee.getByRole("heading", { level: 1, name: "Bench" })).toBeVisible();
+  await expect(invitee.getByText("Not set: you cannot sign steps yet")).toBeVisible();
+  await guest.close();
+});
+
+test("a person sets their signing PIN; a short PIN is refused beside the field", async ({ page }) => {
+  await signInAs(page, "inspector@irongully.example");
+  await expect(page.getByRole("heading", { level: 1, name: "Inspection desk" })).toBeVisible();
+  await page.goto("/account");
+  const form = page.getByTestId("pin-form");
+  await form.getByLabel("Account password").fill("demo-gusset-2026");
+  await form.getByLabel("New PIN", { exact: true }).fill("12");
+  await form.getByLabel("New PIN again").fill("12");
+  await form.getByRole("button", { name: "Save PIN" }).click();
+  await expect(form.getByText("A PIN is 4 to 8 digits, nothing else.")).toBeVisible();
+  await form.getByLabel("New PIN", { exact: true }).fill("2468");
+  await form.getByLabel("New PIN again").fill("2468");
+  await form.getByRole("button", { name: "Save PIN" }).click();
+  await expect(page.getByTestId("pin-ok")).toContainText("Signing PIN saved.");
+});
