@@ -97,6 +97,8 @@ export const mailOutbox = pgTable(
     subject: text("subject").notNull(),
     textBody: text("text_body").notNull(),
     htmlBody: text("html_body").notNull(),
+    // Kept with the mail so that a retry sends the same files (the traveller PDF on release).
+    attachments: jsonb("attachments").$type<{ filename: string; contentType: string; base64: string }[]>().notNull().default([]),
     attempts: integer("attempts").notNull().default(0),
     lastError: text("last_error"),
     sentAt: timestamp("sent_at", { withTimezone: true }),
