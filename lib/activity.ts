@@ -18,7 +18,28 @@ export function describeActivity(action: string, detail: Record<string, unknown>
       return `${who} set a signing PIN`;
     case "pin.reset":
       return `${who} reset a member's signing PIN`;
+    case "procedure.created":
+      return `${who} created procedure ${title(detail)}`;
+    case "procedure.imported":
+      return `${who} imported procedure ${title(detail)}`;
+    case "procedure.published":
+      return `${who} published ${title(detail)}${version(detail)}`;
+    case "procedure.retired":
+      return `${who} retired ${title(detail)}${version(detail)}`;
+    case "procedure.version_started":
+      return `${who} started a new draft of ${title(detail)}${version(detail)}`;
+    case "procedure.draft_discarded":
+      return `${who} discarded a draft of ${title(detail)}${version(detail)}`;
     default:
-      return `${who}: ${action}`;
+      return `${who}: ${action.replace(/[._]/g, " ")}`;
   }
+}
+
+function title(detail: Record<string, unknown>) {
+  return typeof detail.title === "string" ? `“${detail.title}”` : "a procedure";
+}
+
+function version(detail: Record<string, unknown>) {
+  const n = detail.number ?? detail.version;
+  return typeof n === "number" ? ` (version ${n})` : "";
 }
