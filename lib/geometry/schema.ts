@@ -62,7 +62,7 @@ export const steeringInputSchema = z
         z.object({
           y: mm("hole y"),
           z: mm("hole z"),
-          label: z.string("label must be text").trim().min(1, "label must not be empty").max(LIMITS.labelChars).optional(),
+          label: z.string("label must be text").trim().min(1, "label must not be empty").max(LIMITS.labelChars, `label is at most ${LIMITS.labelChars} characters`).optional(),
         }),
       )
       .max(LIMITS.maxHoles, `at most ${LIMITS.maxHoles} candidate holes`)

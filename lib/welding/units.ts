@@ -1,14 +1,12 @@
 // Unit conversions used across the welding module.
 // Exact definitions from NIST SP 811 (2008), Appendix B: 1 in = 25.4 mm, 1 lbf = 4.448 221 615 260 5 N.
-// Every derived factor is computed from these two so the imperial worked examples round-trip exactly.
 
-export const MM_PER_IN = 25.4;
-export const N_PER_LBF = 4.4482216152605;
-export const KN_PER_KIP = N_PER_LBF; // 1 kip = 1000 lbf, 1 kN = 1000 N: the factor is the same number.
+// The factors themselves live in lib/units, so the whole product converts with the very same doubles.
+import { KN_PER_KIP, KPA_PER_PSI, MM_PER_IN, N_PER_LBF, NM_PER_LBF_FT } from "@/lib/units/factors";
+
+export { KN_PER_KIP, MM_PER_IN, N_PER_LBF, NM_PER_LBF_FT };
 /** 1 ksi in MPa (= 1 psi in kPa), 6.894 757 293 168… */
-export const MPA_PER_KSI = N_PER_LBF / (MM_PER_IN * MM_PER_IN) * 1000;
-/** 1 lbf·ft in N·m, 1.355 817 948 3… */
-export const NM_PER_LBF_FT = (N_PER_LBF * 12 * MM_PER_IN) / 1000;
+export const MPA_PER_KSI = KPA_PER_PSI;
 
 export const inToMm = (inches: number): number => inches * MM_PER_IN;
 export const mmToIn = (mm: number): number => mm / MM_PER_IN;

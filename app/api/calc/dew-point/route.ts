@@ -1,0 +1,7 @@
+import { checkDewPoint, dewPointRequestSchema } from "@/lib/coating";
+import { calcRoute } from "../_lib/calc-route";
+
+export const dynamic = "force-dynamic";
+
+// Magnus dew point (Alduchov & Eskridge 1996) and the surface-temperature margin gate before coating.
+export const POST = calcRoute(dewPointRequestSchema, (body) => checkDewPoint(body));

@@ -1,0 +1,265 @@
+// The steering-links calculator's form state and its translation into the steering API input.
+// Pure and JSON-serialisable on purpose: a job's geometry step can keep a before/after state as it is and
+// rebuild the request (or the screen) from it later. Lengths are text in the state's own unit system.
+import { z } from "zod";
+import { steeringRequestSchema, type SteeringRequest } from "@/app/api/calc/steering/schema";
+import { convertText, fieldErrors, numberText, optionalNumberText, optionalQuantityText, quantityText, trimNumber, type FieldErrors, type UnitSystem } from "./values";
+import { LIMITS } from "@/lib/geometry";
+import { fromSI, preferredUnit } from "@/lib/units";
+
+export type PointText = { y: string; z: string };
+export type HoleText = { id: string; label: string; y: string; z: string };
+
+export type SteeringFormState = {
+  version: 1;
+  /** Lengths below are in mm (metric) or inches (imperial); a field may also carry its own unit (`3 1/4"`). */
+  units: UnitSystem;
+  frameEnd: PointText;
+  axleEnd: PointText;
+  pitmanEnd: PointText;
+  knuckleEnd: PointText;
+  axleCenter: PointText;
+  steeringArmLength: string;
+  /** Blank: no steering-wheel figures. */
+  steeringRatio: string;
+  travel: { bump: string; droop: string; step: string };
+  roll: { on: boolean; maxDeg: string; stepDeg: string };
+  holes: HoleText[];
+  /** A column of holes every `pitch` from zMin to zMax on the line y (blank y: the y of the end it replaces). */
+  holeColumn: { on: boolean; zMin: string; zMax: string; pitch: string; y: string };
+  /** Which lateral-link end the candidate holes are for: a new axle bracket (usual) or a new frame bracket. */
+  candidateEnd: "axle" | "frame";
+};
+
+export const POINT_KEYS = ["frameEnd", "axleEnd", "pitmanEnd", "knuckleEnd", "axleCenter"] as const;
+export type PointKey = (typeof POINT_KEYS)[number];
+
+export const POINT_LABELS: Record<PointKey, string> = {
+  frameEnd: "Lateral link, frame end",
+  axleEnd: "Lateral link, axle end",
+  pitmanEnd: "Drag link, pitman arm end",
+  knuckleEnd: "Drag link, steering arm end",
+  axleCenter: "Axle roll centre",
+};
+
+/** Form field key → what to call it in the list of fields still to fix. */
+export function steeringFieldLabel(key: string): string {
+  const [head, a, b] = key.split(".");
+  if (head && head in POINT_LABELS) return `${POINT_LABELS[head as PointKey]} ${a ?? ""}`.trim();
+  if (head === "holes") return `Hole ${Number(a) + 1} ${b ?? ""}`.trim();
+  const names: Record<string, string> = {
+    steeringArmLength: "Steering arm length",
+    steeringRatio: "Steering ratio",
+    "travel.bump": "Bump",
+    "travel.droop": "Droop",
+    "travel.step": "Travel step",
+    "roll.maxDeg": "Roll either way",
+    "roll.stepDeg": "Roll step",
+    "holeColumn.zMin": "Hole column, lowest z",
+    "holeColumn.zMax": "Hole column, highest z",
+    "holeColumn.pitch": "Hole column, pitch",
+    "holeColumn.y": "Hole column, y",
+    holes: "Candidate holes",
+    _: "Layout",
+  };
+  return names[key] ?? key;
+}
+
+const DIGITS = { metric: 2, imperial: 4 } as const;
+
+/** An invented lifted-truck layout in each unit system (round figures, not a converted copy). */
+export function exampleSteeringForm(units: UnitSystem): SteeringFormState {
+  if (units === "imperial") {
+    return {
+      version: 1,
+      units,
+      frameEnd: { y: "-16.5", z: "7" },
+      axleEnd: { y: "19", z: "2.5" },
+      pitmanEnd: { y: "-15.75", z: "6" },
+      knuckleEnd: { y: "17.25", z: "3.75" },
+      axleCenter: { y: "0", z: "0" },
+      steeringArmLength: "6.25",
+      steeringRatio: "16",
+      travel: { bump: "4", droop: "4", step: "0.25" },
+      roll: { on: true, maxDeg: "5", stepDeg: "0.5" },
+      holes: [
+        { id: "h1", label: "H1", y: "19", z: "2.5" },
+        { id: "h2", label: "H2", y: "19", z: "3.5" },
+        { id: "h3", label: "H3", y: "19", z: "4.5" },
+        { id: "h4", label: "H4", y: "19", z: "5.5" },
+      ],
+      holeColumn: { on: false, zMin: "2", zMax: "7", pitch: "0.5", y: "" },
+      candidateEnd: "axle",
+    };
+  }
+  return {
+    version: 1,
+    units,
+    frameEnd: { y: "-420", z: "180" },
+    axleEnd: { y: "480", z: "60" },
+    pitmanEnd: { y: "-400", z: "150" },
+    knuckleEnd: { y: "440", z: "95" },
+    axleCenter: { y: "0", z: "0" },
+    steeringArmLength: "160",
+    steeringRatio: "16",
+    travel: { bump: "100", droop: "100", step: "5" },
+    roll: { on: true, maxDeg: "5", stepDeg: "0.5" },
+    holes: [
+      { id: "h1", label: "H1", y: "480", z: "60" },
+      { id: "h2", label: "H2", y: "480", z: "85" },
+      { id: "h3", label: "H3", y: "480", z: "110" },
+      { id: "h4", label: "H4", y: "480", z: "135" },
+    ],
+    holeColumn: { on: false, zMin: "50", zMax: "175", pitch: "12.5", y: "" },
+    candidateEnd: "axle",
+  };
+}
+
+export function emptySteeringForm(units: UnitSystem): SteeringFormState {
+  const p = { y: "", z: "" };
+  return {
+    version: 1,
+    units,
+    frameEnd: { ...p },
+    axleEnd: { ...p },
+    pitmanEnd: { ...p },
+    knuckleEnd: { ...p },
+    axleCenter: { y: "0", z: "0" },
+    steeringArmLength: "",
+    steeringRatio: "",
+    travel: { bump: "", droop: "", step: "" },
+    roll: { on: false, maxDeg: "", stepDeg: "" },
+    holes: [],
+    holeColumn: { on: false, zMin: "", zMax: "", pitch: "", y: "" },
+    candidateEnd: "axle",
+  };
+}
+
+/** API path (trackBar.frameEnd.y, candidateHoles.2.z, holeRange.pitch…) → the form's field key. */
+function formKey(path: string): string {
+  return path
+    .replace(/^trackBar\./, "")
+    .replace(/^dragLink\./, "")
+    .replace(/^candidateHoles/, "holes")
+    .replace(/^holeRange/, "holeColumn");
+}
+
+export type SteeringRequestOutcome = { ok: true; request: SteeringRequest } | { ok: false; errors: FieldErrors };
+
+/**
+ * Form state → body of POST /api/calc/steering (mm, degrees), checked by the very schema the route uses.
+ * Errors are keyed by the form's fields ("frameEnd.y", "holes.1.z", "travel.step"…).
+ */
+export function toSteeringRequest(state: SteeringFormState): SteeringRequestOutcome {
+  // Every field is read on its own, and the route's schema then runs on what was read (a field that did
+  // not read stands in as NaN, which that schema refuses on the same path). So a range error on one field
+  // shows at the same time as a typo in another: nothing waits for something else to be fixed first.
+  const errors: FieldErrors = {};
+  const unit = preferredUnit("length", state.units);
+  const read = <T>(key: string, schema: z.ZodType<T>, text: string): T | typeof Number.NaN => {
+    const r = schema.safeParse(text);
+    if (r.success) return r.data;
+    errors[key] ??= fieldErrors(r.error.issues)._ ?? "Check this value.";
+    return Number.NaN;
+  };
+  const len = (key: string, text: string, label: string) => read(key, quantityText("length", unit, label), text) as number;
+  const point = (key: PointKey, label: string) => ({
+    y: len(`${key}.y`, state[key].y, `${label} y`),
+    z: len(`${key}.z`, state[key].z, `${label} z`),
+  });
+  const ratio = read("steeringRatio", optionalNumberText("steering ratio"), state.steeringRatio) as number | undefined;
+  const column = state.holeColumn;
+  const columnY = column.on ? (read("holeColumn.y", optionalQuantityText("length", unit), column.y) as number | undefined) : undefined;
+  const request: SteeringRequest = {
+    trackBar: { frameEnd: point("frameEnd", "the frame end"), axleEnd: point("axleEnd", "the axle end") },
+    dragLink: { pitmanEnd: point("pitmanEnd", "the pitman end"), knuckleEnd: point("knuckleEnd", "the steering arm end") },
+    axleCenter: point("axleCenter", "the roll centre"),
+    steeringArmLength: len("steeringArmLength", state.steeringArmLength, "the steering arm length"),
+    ...(ratio !== undefined ? { steeringRatio: ratio } : {}),
+    travel: {
+      bump: len("travel.bump", state.travel.bump, "the bump travel"),
+      droop: len("travel.droop", state.travel.droop, "the droop travel"),
+      step: len("travel.step", state.travel.step, "the travel step"),
+    },
+    ...(state.roll.on
+      ? {
+          roll: {
+            maxDeg: read("roll.maxDeg", numberText("the roll angle"), state.roll.maxDeg) as number,
+            stepDeg: read("roll.stepDeg", numberText("the roll step"), state.roll.stepDeg) as number,
+          },
+        }
+      : {}),
+    ...(state.holes.length
+      ? {
+          candidateHoles: state.holes.map((h, i) => {
+            const label = h.label.trim() || `H${i + 1}`;
+            // Said here in words: the library's own message for an over-long label reads "must be text".
+            if (label.length > LIMITS.labelChars) errors[`holes.${i}.label`] ??= `Keep the label to ${LIMITS.labelChars} characters.`;
+            return { y: len(`holes.${i}.y`, h.y, "the hole y"), z: len(`holes.${i}.z`, h.z, "the hole z"), label };
+          }),
+        }
+      : {}),
+    ...(column.on
+      ? {
+          holeRange: {
+            zMin: len("holeColumn.zMin", column.zMin, "the lowest hole z"),
+            zMax: len("holeColumn.zMax", column.zMax, "the highest hole z"),
+            pitch: len("holeColumn.pitch", column.pitch, "the hole pitch"),
+            ...(columnY !== undefined ? { y: columnY } : {}),
+          },
+        }
+      : {}),
+    ...(state.candidateEnd === "frame" ? { candidateEnd: "frame" as const } : {}),
+  };
+  const checked = steeringRequestSchema.safeParse(request);
+  if (!checked.success) {
+    for (const [key, message] of Object.entries(fieldErrors(checked.error.issues, formKey))) errors[key] ??= message;
+  }
+  if (Object.keys(errors).length) return { ok: false, errors };
+  return { ok: true, request };
+}
+
+/** The other way: a stored request (mm) shown as a form in the given units, e.g. to reopen a job's geometry. */
+export function fromSteeringRequest(request: SteeringRequest, units: UnitSystem): SteeringFormState {
+  const unit = preferredUnit("length", units);
+  const t = (mm: number) => trimNumber(fromSI("length", mm, unit), DIGITS[units]);
+  const pt = (p: { y: number; z: number }): PointText => ({ y: t(p.y), z: t(p.z) });
+  return {
+    version: 1,
+    units,
+    frameEnd: pt(request.trackBar.frameEnd),
+    axleEnd: pt(request.trackBar.axleEnd),
+    pitmanEnd: pt(request.dragLink.pitmanEnd),
+    knuckleEnd: pt(request.dragLink.knuckleEnd),
+    axleCenter: pt(request.axleCenter),
+    steeringArmLength: t(request.steeringArmLength),
+    steeringRatio: request.steeringRatio === undefined ? "" : String(request.steeringRatio),
+    travel: { bump: t(request.travel.bump), droop: t(request.travel.droop), step: t(request.travel.step) },
+    roll: request.roll ? { on: true, maxDeg: String(request.roll.maxDeg), stepDeg: String(request.roll.stepDeg) } : { on: false, maxDeg: "", stepDeg: "" },
+    holes: (request.candidateHoles ?? []).map((h, i) => ({ id: `h${i + 1}`, label: h.label ?? `H${i + 1}`, ...pt(h) })),
+    holeColumn: request.holeRange
+      ? { on: true, zMin: t(request.holeRange.zMin), zMax: t(request.holeRange.zMax), pitch: t(request.holeRange.pitch), y: request.holeRange.y === undefined ? "" : t(request.holeRange.y) }
+      : { on: false, zMin: "", zMax: "", pitch: "", y: "" },
+    candidateEnd: request.candidateEnd ?? "axle",
+  };
+}
+
+/** Same layout, other units: every length field rewritten; a field that does not read stays as typed. */
+export function convertSteeringForm(state: SteeringFormState, to: UnitSystem): SteeringFormState {
+  if (state.units === to) return state;
+  const c = (s: string) => convertText(s, "length", state.units, to, DIGITS);
+  const pt = (p: PointText): PointText => ({ y: c(p.y), z: c(p.z) });
+  return {
+    ...state,
+    units: to,
+    frameEnd: pt(state.frameEnd),
+    axleEnd: pt(state.axleEnd),
+    pitmanEnd: pt(state.pitmanEnd),
+    knuckleEnd: pt(state.knuckleEnd),
+    axleCenter: pt(state.axleCenter),
+    steeringArmLength: c(state.steeringArmLength),
+    travel: { bump: c(state.travel.bump), droop: c(state.travel.droop), step: c(state.travel.step) },
+    holes: state.holes.map((h) => ({ ...h, ...pt(h) })),
+    holeColumn: { ...state.holeColumn, zMin: c(state.holeColumn.zMin), zMax: c(state.holeColumn.zMax), pitch: c(state.holeColumn.pitch), y: c(state.holeColumn.y) },
+  };
+}
