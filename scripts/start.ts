@@ -55,10 +55,13 @@ async function main() {
   const url = stack.env.APP_URL!;
   const accounts = DEMO_SHOPS.flatMap((s) => s.people.map((p) => `    ${p.email.padEnd(30)} ${p.roles.join(", ").padEnd(20)} ${s.name}`));
   console.log(`\nGusset is running at ${url}\n\n  Demo accounts (password ${DEMO_PASSWORD}, signing PIN ${DEMO_PIN}; demo only):\n${accounts.join("\n")}\n\n  Local mailbox: ${url}/mailbox (lead). Press Ctrl-C to stop.\n`);
-  // Mails that could not be sent are retried every minute.
-  setInterval(() => {
-    fetch(`${url}/api/internal/outbox`, { method: "POST", headers: { "x-gusset-secret": stack.env.BETTER_AUTH_SECRET! } }).catch(() => {});
-  }, 60_000).unref();
+  // Mails that could not be sent are retried every minute; qualification notices go out once a day
+  // (the job is idempotent per qualification and day, so a restart or a second instance sends nothing twice).
+  const internal = (path: string) =>
+    fetch(`${url}${path}`, { method: "POST", headers: { "x-gusset-secret": stack.env.BETTER_AUTH_SECRET! } }).catch(() => {});
+  setInterval(() => void internal("/api/internal/outbox"), 60_000).unref();
+  void internal("/api/internal/qualification-notices");
+  setInterval(() => void internal("/api/internal/qualification-notices"), 6 * 3600_000).unref();
 }
 
 main().catch((error) => {
