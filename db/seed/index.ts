@@ -7,6 +7,9 @@ import pg from "pg";
 import * as schema from "@/db/schema";
 import { hashPin } from "@/lib/auth/pin";
 import { DEMO_PASSWORD, DEMO_PIN, DEMO_SHOPS } from "./demo";
+import { seedJobs } from "./jobs";
+import { seedProcedures } from "./procedures";
+import { seedWelding } from "./welding";
 
 const { shop, membership, user, account } = schema;
 
@@ -23,6 +26,7 @@ export async function seed(databaseUrl: string): Promise<{ created: string[] }> 
           [shopRow] = await tx.insert(shop).values({ slug: s.slug, name: s.name, continuityCode: s.continuityCode }).returning({ id: shop.id });
           created.push(`shop ${s.name}`);
         }
+        let leadId: string | undefined;
         for (const p of s.people) {
           let [u] = await tx.select({ id: user.id }).from(user).where(eq(user.email, p.email));
           if (!u) {
@@ -40,7 +44,11 @@ export async function seed(databaseUrl: string): Promise<{ created: string[] }> 
           if (!m) {
             await tx.insert(membership).values({ shopId: shopRow!.id, userId: u.id, roles: [...p.roles], pinHash: await hashPin(DEMO_PIN), pinSetAt: new Date() });
           }
+          if ((p.roles as readonly string[]).includes("lead")) leadId ??= u.id;
         }
+        if (s.slug === "iron-gully" && leadId) created.push(...(await seedProcedures(tx, shopRow!.id, leadId)));
+        if (s.slug === "iron-gully") created.push(...(await seedJobs(tx, shopRow!.id, s.people)));
+        created.push(...(await seedWelding(tx, shopRow!.id, s.people)));
       });
     }
   } finally {

@@ -8,22 +8,54 @@ import { requireShop } from "@/lib/auth/context";
 import { myPinState, shopHeadcount } from "@/db/queries/me";
 import { listOpenInvitations, shopActivityPage } from "@/db/queries/people";
 import { describeActivity } from "@/lib/activity";
+import { jobCountsByState, jobsDueSoon, jobsReadyForRelease } from "@/db/queries/jobs";
+import { JOB_STATE_LABELS, JOB_STATE_VALUES } from "@/lib/jobs/labels";
+import { DeskJobList } from "../../jobs/_components/desk-list";
 
 export const metadata: Metadata = { title: "Lead desk" };
 
 export default async function LeadHome() {
   const ctx = await requireShop("people:manage");
-  const [pin, heads, invitations, activity] = await Promise.all([
+  const [pin, heads, invitations, activity, jobCounts, ready, due] = await Promise.all([
     myPinState(ctx.shopId, ctx.userId),
     shopHeadcount(ctx.shopId),
     listOpenInvitations(ctx.shopId),
     shopActivityPage(ctx.shopId, 8),
+    jobCountsByState(ctx.shopId),
+    jobsReadyForRelease(ctx.shopId),
+    jobsDueSoon(ctx.shopId),
   ]);
   return (
     <>
       <PageHeader title="Lead desk" lead={`${ctx.shop.name}: people, roles and the shop's record.`}>
         <Link href="/people" className="btn btn-primary">Manage people</Link>
       </PageHeader>
+      <section className="card mb-4 p-4" aria-labelledby="jobs-h">
+        <div className="flex flex-wrap items-center justify-between gap-2">
+          <h2 id="jobs-h" className="font-bold">Jobs by state</h2>
+          <span className="flex gap-2"><Link href="/jobs" className="btn btn-quiet">All jobs</Link><Link href="/jobs/new" className="btn btn-primary">New job</Link></span>
+        </div>
+        <ul className="mt-3 grid grid-cols-2 gap-3 sm:grid-cols-3 lg:grid-cols-6" data-testid="job-counts">
+          {JOB_STATE_VALUES.map((s) => (
+            <li key={s}>
+              <Link href={`/jobs?status=${s}`} className="block rounded-md bg-graphite-50 p-3 hover:bg-graphite-100">
+                <StatusBadge tone={JOB_STATE_LABELS[s].tone}>{JOB_STATE_LABELS[s].label}</StatusBadge>
+                <span className="figures mt-1 block text-2xl font-semibold" data-testid={`jobs-${s}`}>{jobCounts[s] ?? 0}</span>
+              </Link>
+            </li>
+          ))}
+        </ul>
+        <div className="mt-4 grid gap-4 md:grid-cols-2">
+          <div>
+            <h3 className="font-semibold">Ready for release</h3>
+            <DeskJobList jobs={ready} empty="Nothing waiting for release." href={(j) => `/jobs/${j.id}`} testId="ready-jobs" />
+          </div>
+          <div>
+            <h3 className="font-semibold">Open jobs, soonest due</h3>
+            <DeskJobList jobs={due} empty="No open jobs." href={(j) => `/jobs/${j.id}`} testId="due-jobs" />
+          </div>
+        </div>
+      </section>
       <div className="grid gap-4 md:grid-cols-3">
         <section className="card p-4 md:col-span-2" aria-labelledby="crew-h">
           <h2 id="crew-h" className="font-bold">Crew by role</h2>

@@ -4,15 +4,21 @@ import { PinStatus } from "@/components/pin-status";
 import { SafetyCautions } from "@/components/safety-cautions";
 import { requireShop } from "@/lib/auth/context";
 import { myPinState } from "@/db/queries/me";
+import { jobsAssignedTo } from "@/db/queries/jobs";
+import { DeskJobList } from "../../jobs/_components/desk-list";
 
 export const metadata: Metadata = { title: "Bench" };
 
 export default async function WelderHome() {
   const ctx = await requireShop("step:sign");
-  const pin = await myPinState(ctx.shopId, ctx.userId);
+  const [pin, mine] = await Promise.all([myPinState(ctx.shopId, ctx.userId), jobsAssignedTo(ctx.shopId, ctx.userId)]);
   return (
     <>
       <PageHeader title="Bench" lead={`Your work at ${ctx.shop.name}. Checklists you run are signed with your PIN.`} />
+      <section className="card mb-4 p-4" aria-labelledby="mine-h">
+        <h2 id="mine-h" className="font-bold">Your jobs</h2>
+        <DeskJobList jobs={mine} empty="No open job is assigned to you." href={(j) => `/run/${j.id}`} testId="my-jobs" />
+      </section>
       <div className="grid gap-4 md:grid-cols-2">
         <PinStatus hasPin={pin.hasPin} locked={pin.locked} />
         <section className="card p-4" aria-labelledby="units-h">

@@ -1,0 +1,174 @@
+// The shape of a job's whole record as GET /api/jobs/{id} answers it (and the job page renders it).
+// Dates are ISO strings so the same type serves the server, the JSON and the browser.
+import type { Step, StepKind } from "@/lib/procedures/schema";
+import type { DispositionName, JobStateName } from "./labels";
+import type { Readiness } from "./readiness";
+
+export type PersonRef = { id: string; name: string };
+
+export type SignOffView = {
+  id: string;
+  stepId: string | null;
+  nonconformanceId: string | null;
+  userId: string;
+  printedName: string;
+  role: string;
+  meaning: "performed" | "inspected" | "dispositioned" | "released";
+  signedAt: string;
+  contentHash: string;
+  amendsSignOffId: string | null;
+  reason: string | null;
+  /** the value that was signed (step sign-offs) */
+  value: Record<string, unknown> | null;
+};
+
+export type PhotoView = {
+  id: string;
+  stepId: string | null;
+  nonconformanceId: string | null;
+  url: string;
+  thumbUrl: string;
+  sha256: string;
+  width: number;
+  height: number;
+  size: number;
+  caption: string;
+  uploadedAt: string;
+  uploadedBy: PersonRef;
+  removed: boolean;
+};
+
+export type PassView = {
+  id: string;
+  stepId: string;
+  passNumber: number;
+  welder: PersonRef;
+  process: string;
+  volts: number;
+  amps: number;
+  travelSpeedMmPerMin: number;
+  travelSpeedUnit: "mm/min" | "in/min";
+  preheatC: number;
+  interpassC: number | null;
+  fillerLot: string;
+  arcEnergyKJPerMm: number;
+  heatInputKJPerMm: number;
+  recordedAt: string;
+  removed: boolean;
+};
+
+export type DispositionView = {
+  disposition: DispositionName;
+  notes: string;
+  decidedBy: PersonRef;
+  decidedAt: string;
+  signOffId: string;
+};
+
+export type NonconformanceView = {
+  id: string;
+  number: number;
+  stepId: string;
+  stepKey: string;
+  stepTitle: string;
+  description: string;
+  proposedDisposition: DispositionName;
+  observed: Record<string, unknown> | null;
+  raisedBy: PersonRef;
+  raisedAt: string;
+  photoIds: string[];
+  disposition: DispositionView | null;
+};
+
+export type StepView = {
+  id: string;
+  position: number;
+  sectionKey: string;
+  sectionTitle: string;
+  sectionPosition: number;
+  key: string;
+  kind: StepKind;
+  title: string;
+  spec: Step;
+  /** working value (before signing) */
+  value: Record<string, unknown> | null;
+  version: number;
+  updatedAt: string | null;
+  updatedBy: PersonRef | null;
+  signed: boolean;
+  signedAt: string | null;
+  /** the hold point keeping this step locked */
+  lockedBy: { id: string; title: string } | null;
+  /** what the record says now: the latest sign-off's value, else the working value */
+  effectiveValue: Record<string, unknown> | null;
+  signOffs: SignOffView[];
+  photoIds: string[];
+  readiness: Readiness;
+  /** why the person asking may not sign this step (role, separation of duties), or null */
+  signBlock: string | null;
+  meaning: "performed" | "inspected";
+};
+
+export type JobHeader = {
+  id: string;
+  number: string;
+  status: JobStateName;
+  customerName: string;
+  customerPhone: string;
+  customerEmail: string;
+  vehicleYear: number | null;
+  vehicleMakeModel: string;
+  vin: string;
+  vinWarning: string | null;
+  axleDescription: string;
+  axleTag: string;
+  procedureId: string;
+  procedureVersionId: string;
+  procedureVersionNumber: number;
+  procedureTitle: string;
+  dueDate: string | null;
+  notes: string;
+  stepsTotal: number;
+  stepsSigned: number;
+  openNonconformances: number;
+  version: number;
+  welders: PersonRef[];
+  inspector: PersonRef | null;
+  createdBy: PersonRef;
+  createdAt: string;
+  updatedAt: string;
+  startedAt: string | null;
+  releasedAt: string | null;
+  releasedBy: PersonRef | null;
+  voidedAt: string | null;
+  voidReason: string | null;
+};
+
+export type JobRecord = {
+  job: JobHeader;
+  steps: StepView[];
+  photos: PhotoView[];
+  passes: PassView[];
+  nonconformances: NonconformanceView[];
+  releaseSignOff: SignOffView | null;
+  releaseBlockers: string[];
+  viewer: { userId: string; name: string; roles: string[]; unitSystem: "metric" | "imperial" };
+};
+
+export type JobListRow = {
+  id: string;
+  number: string;
+  status: JobStateName;
+  customerName: string;
+  vehicle: string;
+  vin: string;
+  vinWarning: boolean;
+  axleTag: string;
+  procedure: string;
+  dueDate: string | null;
+  stepsTotal: number;
+  stepsSigned: number;
+  openNonconformances: number;
+  welders: string[];
+  updatedAt: string;
+};

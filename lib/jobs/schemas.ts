@@ -1,0 +1,110 @@
+// Request schemas of the jobs API and forms (zod 4). FormData goes through conform's parseWithZod, which
+// turns empty fields into undefined, so optional text defaults to "".
+import { z } from "zod";
+import { pinSchema } from "@/lib/auth/pin-schema";
+import { DISPOSITION_VALUES, JOB_STATE_VALUES } from "./labels";
+
+const text = (max: number, label: string) => z.string().trim().max(max, `${label} is at most ${max} characters.`);
+// A field that must be filled: the same words whether it is missing or empty.
+const required = (max: number, label: string, missing: string, min = 1) =>
+  z.string({ message: missing }).trim().min(min, missing).max(max, `${label} is at most ${max} characters.`);
+const optionalText = (max: number, label: string) => text(max, label).optional().transform((v) => v ?? "");
+const id = z.string().trim().min(1).max(64);
+
+export const jobFieldsSchema = z.object({
+  customerName: required(120, "The customer's name", "Enter the customer's name.", 2),
+  customerPhone: optionalText(40, "A phone number").refine((v) => v === "" || /^[+()\d\s./-]{5,40}$/.test(v), "Digits, spaces and + ( ) - . / only."),
+  customerEmail: z.email("Enter an e-mail address like name@example.com.").max(200).optional().transform((v) => v ?? ""),
+  vehicleYear: z.coerce.number({ message: "A year like 2011." }).int("A whole year.").min(1900, "A year from 1900.").max(2100, "A year up to 2100.").optional(),
+  vehicleMakeModel: required(120, "Make and model", "Describe the vehicle (make and model, as free text).", 2),
+  vin: optionalText(40, "A VIN"),
+  axleDescription: required(200, "The axle description", "Describe the axle or frame part.", 2),
+  axleTag: required(60, "The axle tag", "Enter the axle's ID tag."),
+  welderIds: z.array(id).max(10, "At most 10 welders.").default([]),
+  inspectorId: id.optional(),
+  dueDate: z.iso.date("A date like 2026-03-14.").optional(),
+  notes: optionalText(4000, "Notes"),
+});
+
+export const createJobSchema = jobFieldsSchema.extend({ procedureVersionId: z.uuid("Choose a published procedure version.") });
+export type CreateJobInput = z.output<typeof createJobSchema>;
+
+// A header edit names the version it was based on; everything but the pinned procedure may change.
+export const updateJobSchema = jobFieldsSchema
+  .partial()
+  .extend({
+    baseVersion: z.number().int().min(1),
+    // null clears them
+    dueDate: z.iso.date("A date like 2026-03-14.").nullable().optional(),
+    inspectorId: id.nullable().optional(),
+  })
+  .strict();
+export type UpdateJobInput = z.output<typeof updateJobSchema>;
+
+export const listJobsQuerySchema = z.object({
+  q: z.string().trim().max(100).optional().catch(undefined),
+  status: z.enum([...JOB_STATE_VALUES, "open"]).optional().catch(undefined),
+  assignee: z.string().trim().max(64).optional().catch(undefined),
+  dueFrom: z.iso.date().optional().catch(undefined),
+  dueTo: z.iso.date().optional().catch(undefined),
+  sort: z.enum(["number", "due", "customer", "status", "progress", "updated"]).catch("number"),
+  dir: z.enum(["asc", "desc"]).catch("desc"),
+  page: z.coerce.number().int().min(1).max(100_000).catch(1),
+  pageSize: z.coerce.number().int().min(1).max(100).catch(25),
+});
+export type ListJobsQuery = z.output<typeof listJobsQuerySchema>;
+
+export const saveValueSchema = z.object({ baseVersion: z.number().int().min(0), value: z.record(z.string(), z.unknown()) }).strict();
+
+export const signStepSchema = z.object({ pin: pinSchema, baseVersion: z.number().int().min(0) }).strict();
+
+export const amendStepSchema = z
+  .object({
+    pin: pinSchema,
+    amendsSignOffId: z.uuid(),
+    reason: z.string().trim().min(5, "Say why the signed value is corrected (at least 5 characters).").max(1000),
+    value: z.record(z.string(), z.unknown()),
+  })
+  .strict();
+
+export const weldPassSchema = z
+  .object({
+    clientKey: z.string().trim().min(8).max(64),
+    volts: z.number({ message: "Volts must be a number." }).gt(0, "Volts above 0.").max(100, "Volts up to 100."),
+    amps: z.number({ message: "Amps must be a number." }).gt(0, "Amps above 0.").max(1500, "Amps up to 1,500."),
+    travelSpeed: z.object({
+      value: z.number({ message: "Travel speed must be a number." }).gt(0, "Travel speed above 0.").max(20_000),
+      unit: z.enum(["mm/min", "in/min"]),
+    }),
+    preheatC: z.number({ message: "Measured preheat must be a number." }).min(-60).max(700),
+    interpassC: z.number({ message: "Interpass must be a number." }).min(-60).max(700).optional(),
+    fillerLot: z.string().trim().min(1, "Enter the filler lot or heat number.").max(60),
+  })
+  .strict();
+
+export const raiseNcSchema = z
+  .object({
+    stepId: z.uuid(),
+    description: z.string().trim().min(5, "Describe what is wrong (at least 5 characters).").max(4000),
+    proposedDisposition: z.enum(DISPOSITION_VALUES, { message: "Propose rework, repair, use as is or scrap." }),
+    photoIds: z.array(z.uuid()).max(10).default([]),
+  })
+  .strict();
+
+export const dispositionSchema = z
+  .object({
+    disposition: z.enum(DISPOSITION_VALUES, { message: "Choose rework, repair, use as is or scrap." }),
+    notes: z.string().trim().max(4000).default(""),
+    pin: pinSchema,
+  })
+  .strict();
+
+export const releaseSchema = z.object({ pin: pinSchema }).strict();
+export const voidSchema = z.object({ reason: z.string().trim().min(5, "Say why the job is void (at least 5 characters).").max(1000) }).strict();
+
+export const PHOTO_MAX_BYTES = 20 * 1024 * 1024;
+export const photoFieldsSchema = z.object({
+  idempotencyKey: z.string().trim().regex(/^[A-Za-z0-9_-]{8,64}$/, "The upload key is 8 to 64 letters, digits, - or _."),
+  stepId: z.uuid().optional(),
+  caption: z.string().trim().max(300).default(""),
+});
