@@ -5,7 +5,8 @@ import { mailOutbox } from "@/db/schema";
 import { db } from "@/lib/db";
 import { env } from "@/lib/env";
 
-export type Mail = { to: string; subject: string; text: string; html: string; shopId?: string | null };
+export type MailAttachment = { filename: string; contentType: string; content: Buffer };
+export type Mail = { to: string; subject: string; text: string; html: string; shopId?: string | null; attachments?: MailAttachment[] };
 
 const MAX_ATTEMPTS = 8;
 
@@ -27,7 +28,14 @@ function transport() {
 export async function sendMail(mail: Mail): Promise<{ id: string; sent: boolean }> {
   const [row] = await db()
     .insert(mailOutbox)
-    .values({ shopId: mail.shopId ?? null, toAddress: mail.to, subject: mail.subject, textBody: mail.text, htmlBody: mail.html })
+    .values({
+      shopId: mail.shopId ?? null,
+      toAddress: mail.to,
+      subject: mail.subject,
+      textBody: mail.text,
+      htmlBody: mail.html,
+      attachments: (mail.attachments ?? []).map((a) => ({ filename: a.filename, contentType: a.contentType, base64: a.content.toString("base64") })),
+    })
     .returning({ id: mailOutbox.id });
   const sent = await deliver(row!.id, mail);
   return { id: row!.id, sent };
@@ -35,7 +43,14 @@ export async function sendMail(mail: Mail): Promise<{ id: string; sent: boolean 
 
 async function deliver(id: string, mail: Mail): Promise<boolean> {
   try {
-    await transport().sendMail({ from: env().MAIL_FROM, to: mail.to, subject: mail.subject, text: mail.text, html: mail.html });
+    await transport().sendMail({
+      from: env().MAIL_FROM,
+      to: mail.to,
+      subject: mail.subject,
+      text: mail.text,
+      html: mail.html,
+      attachments: (mail.attachments ?? []).map((a) => ({ filename: a.filename, contentType: a.contentType, content: a.content })),
+    });
     await db().update(mailOutbox).set({ sentAt: new Date(), lastError: null }).where(eq(mailOutbox.id, id));
     return true;
   } catch (error) {
@@ -57,7 +72,8 @@ export async function flushOutbox(limit = 50): Promise<{ tried: number; sent: nu
     .limit(limit);
   let sent = 0;
   for (const m of pending) {
-    if (await deliver(m.id, { to: m.toAddress, subject: m.subject, text: m.textBody, html: m.htmlBody })) sent++;
+    const attachments = m.attachments.map((a) => ({ filename: a.filename, contentType: a.contentType, content: Buffer.from(a.base64, "base64") }));
+    if (await deliver(m.id, { to: m.toAddress, subject: m.subject, text: m.textBody, html: m.htmlBody, attachments })) sent++;
   }
   return { tried: pending.length, sent };
 }

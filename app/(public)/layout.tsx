@@ -1,0 +1,16 @@
+import Link from "next/link";
+import { Wordmark } from "@/components/logo";
+
+export default function PublicLayout({ children }: { children: React.ReactNode }) {
+  return (
+    <div className="min-h-screen bg-graphite-50">
+      <header className="no-print bg-graphite-900 px-4 py-3 text-white">
+        <div className="mx-auto flex max-w-3xl items-center justify-between">
+          <Link href="/scan" className="text-white"><Wordmark /></Link>
+          <Link href="/scan" className="btn btn-quiet">Scan a traveller</Link>
+        </div>
+      </header>
+      <main className="mx-auto max-w-3xl px-4 py-6">{children}</main>
+    </div>
+  );
+}
