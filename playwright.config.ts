@@ -9,7 +9,8 @@ export default defineConfig({
   timeout: 60_000,
   expect: { timeout: 10_000 },
   reporter: [["list"], ["json"]],
-  outputDir: ".data/test-results",
+  // Per app port, so runs side by side never clear each other's traces.
+  outputDir: `.data/test-results-${process.env.TEST_APP_PORT ?? "3100"}`,
   use: {
     baseURL: process.env.GUSSET_TEST_URL ?? "http://127.0.0.1:3100",
     trace: "retain-on-failure",

@@ -32,7 +32,8 @@ const config: Config = {
           900: "#2f3608",
         },
         tint: { straw: "#d8b45a", bronze: "#a4652c", purple: "#6a3f9e", blue: "#2d5aa6" },
-        verdict: { fail: "#a3241b", failbg: "#fbe9e7", warn: "#7a5200", warnbg: "#fdf1d6", pass: "#2f4a08", passbg: "#eef5d6" },
+        // Text on its own background is at least 7:1 (WCAG 2.x AAA) for shop glare.
+        verdict: { fail: "#8a1c14", failbg: "#fbe9e7", warn: "#654400", warnbg: "#fdf1d6", pass: "#2f4a08", passbg: "#eef5d6" },
       },
       fontFamily: {
         sans: ["var(--font-text)", "system-ui", "sans-serif"],

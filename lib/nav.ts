@@ -8,7 +8,13 @@ export const NAV: NavItem[] = [
   { href: "/home/welder", label: "Bench", action: "step:sign", roles: ["welder"] },
   { href: "/home/inspector", label: "Inspection desk", action: "inspection:sign", roles: ["inspector"] },
   { href: "/home/auditor", label: "Record lookup", action: "audit:search", roles: ["auditor"] },
+  { href: "/jobs", label: "Jobs", action: "job:read" },
+  { href: "/records", label: "Released records", action: "audit:search", roles: ["lead", "inspector"] },
+  { href: "/procedures", label: "Procedures", action: "procedure:read" },
   { href: "/people", label: "People", action: "people:read" },
+  { href: "/wps", label: "WPS library", action: "procedure:read" },
+  { href: "/qualifications", label: "Qualifications", action: "job:read" },
+  { href: "/calc", label: "Calculators", action: "calc:use" },
   { href: "/mailbox", label: "Local mailbox", action: "mailbox:read", localMailOnly: true },
 ];
 

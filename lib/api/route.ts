@@ -45,10 +45,11 @@ type Params = Record<string, string | string[] | undefined>;
 
 type Handler<B, C> = (args: { req: NextRequest; body: B; params: Params; ctx: C; query: URLSearchParams }) => Promise<Response | unknown>;
 
-async function principalFor(req: NextRequest): Promise<ShopContext | null> {
+// `preferShopId` picks that shop when the person belongs to it (a record's own shop, say).
+async function principalFor(req: NextRequest, preferShopId?: string): Promise<ShopContext | null> {
   const user = await sessionFromHeaders(req.headers);
   if (!user) return null;
-  const wanted = req.headers.get("x-gusset-shop") ?? req.cookies.get(SHOP_COOKIE)?.value;
+  const wanted = preferShopId ?? req.headers.get("x-gusset-shop") ?? req.cookies.get(SHOP_COOKIE)?.value;
   return shopContextFor(user, wanted ?? undefined);
 }
 
@@ -79,10 +80,10 @@ export function shopRoute<S extends z.ZodType | undefined = undefined>(
 // A handler open to anyone (calculators, health, verify); it may still look at the session.
 export function publicRoute<S extends z.ZodType | undefined = undefined>(
   opts: { body?: S },
-  handler: Handler<S extends z.ZodType ? z.output<S> : undefined, { principal: () => Promise<ShopContext | null> }>,
+  handler: Handler<S extends z.ZodType ? z.output<S> : undefined, { principal: (preferShopId?: string) => Promise<ShopContext | null> }>,
 ) {
   return wrap(async (req, params) => {
     const body = opts.body ? opts.body.parse(await readJson(req)) : undefined;
-    return handler({ req, params, body: body as never, ctx: { principal: () => principalFor(req) }, query: req.nextUrl.searchParams });
+    return handler({ req, params, body: body as never, ctx: { principal: (preferShopId?: string) => principalFor(req, preferShopId) }, query: req.nextUrl.searchParams });
   });
 }
