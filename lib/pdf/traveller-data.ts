@@ -110,7 +110,8 @@ export const weldRowSchema = z
     heatInputKJPerMm: finite,
     /** the WPS's upper heat-input limit, printed beside the verdict when known */
     heatInputMaxKJPerMm: finite.optional(),
-    heatInputVerdict: z.enum(["within", "over"]),
+    /** "na" when no published WPS limit was found for the reference */
+    heatInputVerdict: z.enum(["within", "over", "na"]),
     inspections: z
       .array(
         z

@@ -649,7 +649,7 @@ function WeldSection({ c }: { c: Ctx }) {
                 {w.heatInputMaxKJPerMm !== undefined ? <Text style={[s.mono, s.tiny, s.muted]}>max {formatNumber(w.heatInputMaxKJPerMm, 2)}</Text> : null}
               </Cell>
               <Cell flex={0.85}>
-                <Verdict kind={w.heatInputVerdict} word={w.heatInputVerdict} />
+                <Verdict kind={w.heatInputVerdict} word={w.heatInputVerdict === "na" ? "no WPS limit" : w.heatInputVerdict} />
               </Cell>
               <Cell flex={2.05}>
                 {w.inspections.length === 0 ? <Verdict kind="open" word="not inspected" /> : null}

@@ -1,0 +1,86 @@
+import "server-only";
+import { and, eq } from "drizzle-orm";
+import sharp from "sharp";
+import { procedureVersion } from "@/db/schema";
+import type { ShopContext } from "@/lib/auth/context";
+import { db } from "@/lib/db";
+import { env } from "@/lib/env";
+import { mailHtml, sendMail } from "@/lib/mail";
+import { renderTraveller } from "@/lib/pdf";
+import { buildTravellerData } from "@/lib/traveller/build";
+import { getJobRecord } from "./jobs-core";
+import { photoForServing } from "./jobs-photos";
+import { tokenForJob, verifyJobRecord } from "./records";
+import { publishedWpsByReference } from "./wps";
+
+export function verifyUrlFor(token: string) {
+  return `${env().APP_URL.replace(/\/$/, "")}/verify/${token}`;
+}
+
+// The whole traveller of one job of the person's shop, as PDF bytes.
+export async function travellerPdf(ctx: ShopContext, jobId: string, paper: "a4" | "letter") {
+  const record = await getJobRecord(ctx, jobId);
+  const [integrity, token, [version]] = await Promise.all([
+    verifyJobRecord(jobId),
+    tokenForJob(db(), { shopId: ctx.shopId, jobId }),
+    db()
+      .select({ contentHash: procedureVersion.contentHash })
+      .from(procedureVersion)
+      .where(and(eq(procedureVersion.id, record.job.procedureVersionId), eq(procedureVersion.shopId, ctx.shopId))),
+  ]);
+  const refs = [...new Set(record.steps.flatMap((s) => (s.spec.kind === "weld" ? [s.spec.wpsRef] : [])))];
+  const wpsLimits = Object.fromEntries(
+    await Promise.all(
+      refs.map(async (ref) => {
+        const w = await publishedWpsByReference(ctx.shopId, ref);
+        return [ref, { heatInputMaxKJPerMm: w?.ranges.heatInputMaxKJPerMm, heatInputBasis: w?.ranges.heatInputBasis }] as const;
+      }),
+    ),
+  );
+  const photos = [];
+  for (const p of record.photos.filter((ph) => !ph.removed).slice(0, 60)) {
+    const thumb = await photoForServing(ctx.shopId, p.id, "thumb").catch(() => null);
+    if (!thumb) continue;
+    const bytes = thumb.bytes;
+    // The contact sheet takes JPEG; thumbnails are re-encoded whatever they were stored as.
+    photos.push({ image: await sharp(bytes).jpeg({ quality: 80 }).toBuffer(), caption: p.caption || record.steps.find((s) => s.id === p.stepId)?.title || "", stepKey: record.steps.find((s) => s.id === p.stepId)?.key, takenAt: p.uploadedAt, sha256: p.sha256 });
+  }
+  const data = buildTravellerData(record, {
+    shopName: ctx.shop.name,
+    versionHash: version?.contentHash ?? "0".repeat(64),
+    seal: { sha256: (integrity.intact ? integrity.seal : integrity.storedSeal) ?? "0".repeat(64), entries: integrity.entries },
+    verifyUrl: verifyUrlFor(token),
+    paper,
+    unitSystem: ctx.unitSystem,
+    photos,
+    wpsLimits,
+  });
+  const pdf = await renderTraveller(data);
+  return { pdf, jobNumber: record.job.number, released: record.job.status === "released", customerEmail: record.job.customerEmail, customerName: record.job.customerName };
+}
+
+// On release the customer gets the traveller. A failure is logged and retried from the outbox; it never
+// undoes or blocks the release.
+export async function mailTravellerToCustomer(ctx: ShopContext, jobId: string): Promise<{ sent: boolean } | null> {
+  try {
+    const t = await travellerPdf(ctx, jobId, "a4");
+    if (!t.customerEmail) return null;
+    const lines = [
+      `Job ${t.jobNumber} at ${ctx.shop.name} has been released. Its traveller is attached.`,
+      "The QR code on it opens the record and checks that it has not been changed since it was signed.",
+      "The work supports, and never replaces, the vehicle maker's specifications, local codes and qualified or licensed practice.",
+    ];
+    const { sent } = await sendMail({
+      shopId: ctx.shopId,
+      to: t.customerEmail,
+      subject: `Traveller for job ${t.jobNumber} from ${ctx.shop.name}`,
+      text: `Hello ${t.customerName},\n\n${lines.join("\n\n")}\n`,
+      html: mailHtml(`Job ${t.jobNumber} released`, [`Hello ${t.customerName},`, ...lines]),
+      attachments: [{ filename: `${t.jobNumber}-traveller.pdf`, contentType: "application/pdf", content: t.pdf }],
+    });
+    return { sent };
+  } catch (error) {
+    console.error(`[traveller] could not mail the traveller of job ${jobId}:`, (error as Error).message);
+    return null;
+  }
+}
