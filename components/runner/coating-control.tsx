@@ -64,7 +64,7 @@ export function CoatingControl({ spec, value, readOnly, unitSystem, onChange }: 
   const activeIsDft = active.startsWith("dft");
 
   return (
-    <div className="grid gap-4 md:grid-cols-[minmax(0,1fr)_18rem]">
+    <div className={readOnly ? "space-y-3" : "grid gap-4 md:grid-cols-[minmax(0,1fr)_18rem]"}>
       <div className="space-y-4">
         <p className="text-graphite-950">
           {spec.product} over {spec.surfacePrep}. DFT {show("thickness", spec.dftMinUm, dftUnit)} to {show("thickness", spec.dftMaxUm, dftUnit)}; surface at least {spec.dewPointMarginC} °C above the dew point.
@@ -72,9 +72,9 @@ export function CoatingControl({ spec, value, readOnly, unitSystem, onChange }: 
         <fieldset className="space-y-2">
           <legend className="text-lg font-bold">Conditions now</legend>
           <div className="grid gap-3 sm:grid-cols-3">
-            <PadField id="coat-air" label="Air temperature" text={texts.air ?? ""} unitSymbol={symbolOf("temperature", tempUnit)} active={active === "air"} onActivate={() => setActive("air")} onText={readOnly ? undefined : (t) => setText("air", t)} disabled={readOnly} />
-            <PadField id="coat-rh" label="Relative humidity" text={texts.rh ?? ""} unitSymbol="%" active={active === "rh"} onActivate={() => setActive("rh")} onText={readOnly ? undefined : (t) => setText("rh", t)} disabled={readOnly} />
-            <PadField id="coat-surface" label="Surface temperature" text={texts.surface ?? ""} unitSymbol={symbolOf("temperature", tempUnit)} active={active === "surface"} onActivate={() => setActive("surface")} onText={readOnly ? undefined : (t) => setText("surface", t)} disabled={readOnly} />
+            <PadField id="coat-air" label="Air" text={texts.air ?? ""} unitSymbol={symbolOf("temperature", tempUnit)} active={!readOnly && active === "air"} onActivate={() => setActive("air")} onText={readOnly ? undefined : (t) => setText("air", t)} disabled={readOnly} />
+            <PadField id="coat-rh" label="Humidity (RH)" text={texts.rh ?? ""} unitSymbol="%" active={!readOnly && active === "rh"} onActivate={() => setActive("rh")} onText={readOnly ? undefined : (t) => setText("rh", t)} disabled={readOnly} />
+            <PadField id="coat-surface" label="Steel surface" text={texts.surface ?? ""} unitSymbol={symbolOf("temperature", tempUnit)} active={!readOnly && active === "surface"} onActivate={() => setActive("surface")} onText={readOnly ? undefined : (t) => setText("surface", t)} disabled={readOnly} />
           </div>
           {!readOnly ? <UnitSwitch quantity="temperature" unit={tempUnit} label="Temperatures" onUnit={(u) => { setTempUnit(u); onChange(build(texts, u, dftUnit)); }} /> : null}
           {dew ? (
@@ -116,7 +116,7 @@ export function CoatingControl({ spec, value, readOnly, unitSystem, onChange }: 
                             aria-pressed={active === id}
                             onClick={() => setActive(id)}
                             data-testid={id}
-                            className={`figures min-h-12 w-full rounded-md border-2 px-2 text-right text-lg font-semibold ${active === id ? "border-graphite-950 ring-4 ring-primer-400" : "border-graphite-500"} bg-white`}
+                            className={`figures min-h-12 w-full rounded-md border-2 px-2 text-right text-lg font-semibold ${!readOnly && active === id ? "border-graphite-950 ring-4 ring-primer-400" : "border-graphite-500"} bg-white`}
                           >
                             {texts[id] || "—"}
                           </button>

@@ -26,6 +26,12 @@ const SCALARS = [
   { id: "droop", label: "Droop travel", length: true },
   { id: "ratio", label: "Steering ratio (optional)", length: false },
 ] as const;
+function fieldName(id: string): string {
+  const [p, axis] = id.split(".");
+  const point = POINTS.find((x) => x.id === p);
+  if (point) return `${point.label}, ${axis}`;
+  return SCALARS.find((x) => x.id === id)?.label ?? id;
+}
 const FIELD_ORDER = [...POINTS.flatMap((p) => [`${p.id}.y`, `${p.id}.z`]), ...SCALARS.map((s) => s.id)];
 const STEP_MM = 5;
 
@@ -138,13 +144,13 @@ function CaptureForm({ stepId, which, capture, readOnly, unitSystem, onCapture, 
       aria-pressed={active === id}
       onClick={() => setActive(id)}
       data-testid={`geo-${id}`}
-      className={`figures min-h-12 w-full rounded-md border-2 bg-white px-2 text-right text-lg font-semibold ${active === id ? "border-graphite-950 ring-4 ring-primer-400" : "border-graphite-500"}`}
+      className={`figures min-h-12 w-full rounded-md border-2 bg-white px-2 text-right text-lg font-semibold ${!readOnly && active === id ? "border-graphite-950 ring-4 ring-primer-400" : "border-graphite-500"}`}
     >
       {texts[id] || "—"}
     </button>
   );
   return (
-    <div className="grid gap-4 md:grid-cols-[minmax(0,1fr)_18rem]">
+    <div className={readOnly ? "space-y-3" : "grid gap-4 md:grid-cols-[minmax(0,1fr)_18rem]"}>
       <div className="space-y-3">
         <p className="text-graphite-900">Front view at ride height, from one datum on the frame: y across the vehicle, z up, in {symbolOf("length", unit)}.</p>
         <table className="w-full border-separate border-spacing-2">
@@ -169,7 +175,8 @@ function CaptureForm({ stepId, which, capture, readOnly, unitSystem, onCapture, 
         </table>
         {!readOnly ? <UnitSwitch quantity="length" unit={unit} label="Lengths" onUnit={(u) => { setUnit(u); update(texts, u); }} /> : null}
         {results ? (
-          <VerdictBox tone={Math.abs(results.worstHeave.wheelSteerDeg) <= 0.25 ? "pass" : "wait"} title={`Worst bump steer ${results.worstHeave.wheelSteerDeg.toFixed(2)}° at ${show("length", results.worstHeave.travel, unit)}`} testId="geometry-results">
+          // No acceptance limit is set by the step, so the result is information, not a verdict.
+          <VerdictBox tone="info" title={`Worst bump steer ${results.worstHeave.wheelSteerDeg.toFixed(2)}° at ${show("length", results.worstHeave.travel, unit)}`} testId="geometry-results">
               Lateral link {results.trackBarAngleDeg.toFixed(2)}°, drag link {results.dragLinkAngleDeg.toFixed(2)}°, difference {results.angleDifferenceDeg.toFixed(2)}°.
               {results.steeringWheelDeg !== null ? ` Steering wheel ${results.steeringWheelDeg.toFixed(1)}°.` : ""}
               {other?.results ? (
@@ -186,11 +193,10 @@ function CaptureForm({ stepId, which, capture, readOnly, unitSystem, onCapture, 
         ) : (
           <VerdictBox tone="idle" title="Enter every point, the arm length and the travel" testId="geometry-results" />
         )}
-        <p className="text-sm text-graphite-900">Results support, and never replace, the vehicle maker&apos;s specifications and qualified practice.</p>
       </div>
       {!readOnly ? (
         <div className="md:sticky md:top-28 md:self-start">
-          <p className="mb-2 text-sm font-semibold">Typing into: {active}</p>
+          <p className="mb-2 text-sm font-semibold">Typing into: {fieldName(active)}</p>
           <NumberPad negative={isLength(active)} onKey={(k) => update({ ...texts, [active]: applyKey(texts[active] ?? "", k, { negative: isLength(active) }) }, unit)} />
           <button type="button" className="btn btn-quiet mt-2 min-h-14 w-full text-lg" onClick={() => setActive(FIELD_ORDER[(FIELD_ORDER.indexOf(active) + 1) % FIELD_ORDER.length]!)}>
             Next field →

@@ -3,6 +3,7 @@
 // so a retry after a broken upload never makes a second copy. Refusals say why (type, size, damage).
 import { useState } from "react";
 import type { PhotoView } from "@/lib/jobs/record";
+import { PHOTO_MAX_BYTES } from "@/lib/jobs/schemas";
 import { ApiError, newKey, uploadPhoto } from "./api";
 import { useSetRecord } from "./use-job";
 
@@ -56,6 +57,11 @@ export function PhotoStrip({
   const onFiles = (files: FileList | null) => {
     for (const file of Array.from(files ?? [])) {
       const u: Upload = { key: newKey(), name: file.name, file, preview: URL.createObjectURL(file), progress: 0, status: "uploading" };
+      if (file.size > PHOTO_MAX_BYTES) {
+        // Said here at once rather than after sending 20 MB over the shop's wifi; the server refuses it too.
+        setUploads((all) => [...all, { ...u, status: "failed", error: `This file is ${(file.size / 1024 / 1024).toFixed(1)} MB; photos are at most 20 MB.` }]);
+        continue;
+      }
       setUploads((all) => [...all, u]);
       void send(u);
     }

@@ -65,7 +65,7 @@ export function ReadingControl({
   const words = v ? verdictWords(quantity, v, unit) : null;
   const base = BASE_UNIT[quantity];
   return (
-    <div className="grid gap-4 md:grid-cols-[minmax(0,1fr)_18rem]">
+    <div className={readOnly ? "space-y-3" : "grid gap-4 md:grid-cols-[minmax(0,1fr)_18rem]"}>
       <div className="space-y-3">
         <p className="text-lg text-graphite-950" data-testid="spec-line">{specLine(unit)}</p>
         <PadField id={id} label={label} text={text} unitSymbol={symbolOf(quantity, unit)} active={!readOnly} onActivate={() => {}} onText={readOnly ? undefined : (t) => change(t)} disabled={readOnly} />

@@ -112,8 +112,8 @@ export function StepPanel({ record, step, onNext, isLast }: { record: JobRecord;
             onChange={(reading, unit) => onChange({ ...v, reading, unit })}
             specLine={(unit) => (
               <>
-                {spec.nominal !== undefined ? <>Nominal <strong className="figures">{show(q, spec.nominal, unit)}</strong>; </> : null}
-                limits <strong className="figures">{boundsText(q, measureBounds(spec), unit)}</strong>
+                {spec.nominal !== undefined ? <>Nominal <strong className="figures">{show(q, spec.nominal, unit)}</strong>; limits </> : "Limits: "}
+                <strong className="figures">{boundsText(q, measureBounds(spec), unit)}</strong>
               </>
             )}
           />

@@ -18,6 +18,7 @@ import {
   weldPass,
 } from "@/db/schema";
 import type { ShopContext } from "@/lib/auth/context";
+import { appendToChain } from "@/db/queries/records";
 import { db } from "@/lib/db";
 import { AppError } from "@/lib/errors";
 import { assembleRecord, type JobParts, type Viewer } from "@/lib/jobs/assemble";
@@ -337,6 +338,19 @@ export function assertJobOpen(record: JobRecord) {
   const { status, number } = record.job;
   if (status === "released") throw new AppError("conflict", `${number} is released; its record is closed. Nothing can be changed.`);
   if (status === "void") throw new AppError("conflict", `${number} is void; nothing more is recorded on it.`);
+}
+
+type SignOffRow = typeof signOff.$inferInsert;
+
+/**
+ * The one place a sign-off is written (step sign-offs, amendments, dispositions, releases), inside the
+ * transaction of its write. It is appended to the job's record chain in the same transaction, so a
+ * sign-off never exists without its chain entry.
+ */
+export async function appendSignOff(x: Exec, values: Omit<SignOffRow, "id">): Promise<{ id: string; signedAt: Date }> {
+  const [row] = await x.insert(signOff).values(values).returning({ id: signOff.id, signedAt: signOff.signedAt });
+  await appendToChain(x as Parameters<typeof appendToChain>[0], row!.id);
+  return row!;
 }
 
 export async function logActivity(x: Exec, row: { shopId: string; jobId: string; actorId: string | null; action: string; stepId?: string | null; detail?: Record<string, unknown> }) {

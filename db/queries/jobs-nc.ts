@@ -2,7 +2,7 @@ import "server-only";
 // Nonconformances: raised on a step (by a welder, inspector or lead), dispositioned with a signed decision
 // by a lead or inspector who did not raise it. Open ones put the job on hold.
 import { and, eq, inArray, isNull, sql } from "drizzle-orm";
-import { nonconformance, nonconformanceDisposition, photo, signOff } from "@/db/schema";
+import { nonconformance, nonconformanceDisposition, photo } from "@/db/schema";
 import type { ShopContext } from "@/lib/auth/context";
 import { assertDifferentPeople } from "@/lib/authz";
 import { db } from "@/lib/db";
@@ -11,7 +11,7 @@ import { recordContent } from "@/lib/jobs/content";
 import { contentHash } from "@/lib/jobs/hash";
 import { DISPOSITION_LABELS, type DispositionName } from "@/lib/jobs/labels";
 import { verifySigningPin } from "@/db/queries/people";
-import { assertJobOpen, guarded, loadRecord, logActivity, refreshJobState } from "./jobs-core";
+import { appendSignOff, assertJobOpen, guarded, loadRecord, logActivity, refreshJobState } from "./jobs-core";
 import { findStep } from "./jobs-steps";
 
 export async function raiseNonconformance(
@@ -93,20 +93,17 @@ export async function dispositionNonconformance(ctx: ShopContext, jobId: string,
           disposition: input.disposition,
           notes: input.notes,
         });
-        const [so] = await tx
-          .insert(signOff)
-          .values({
-            shopId: ctx.shopId,
-            jobId,
-            nonconformanceId: nc.id,
-            userId: ctx.userId,
-            printedName: ctx.user.name,
-            role,
-            meaning: "dispositioned",
-            content,
-            contentHash: contentHash(content),
-          })
-          .returning({ id: signOff.id });
+        const so = await appendSignOff(tx, {
+          shopId: ctx.shopId,
+          jobId,
+          nonconformanceId: nc.id,
+          userId: ctx.userId,
+          printedName: ctx.user.name,
+          role,
+          meaning: "dispositioned",
+          content,
+          contentHash: contentHash(content),
+        });
         await tx.insert(nonconformanceDisposition).values({
           shopId: ctx.shopId,
           jobId,
@@ -114,7 +111,7 @@ export async function dispositionNonconformance(ctx: ShopContext, jobId: string,
           disposition: input.disposition,
           notes: input.notes,
           decidedBy: ctx.userId,
-          signOffId: so!.id,
+          signOffId: so.id,
         });
         await logActivity(tx, {
           shopId: ctx.shopId,
@@ -122,7 +119,7 @@ export async function dispositionNonconformance(ctx: ShopContext, jobId: string,
           actorId: ctx.userId,
           action: "nc.dispositioned",
           stepId: nc.stepId,
-          detail: { number: nc.number, disposition: input.disposition, notes: input.notes, signOffId: so!.id },
+          detail: { number: nc.number, disposition: input.disposition, notes: input.notes, signOffId: so.id },
         });
         await refreshJobState(tx, ctx.shopId, jobId, ctx.userId);
         return { record: await loadRecord(tx, ctx, jobId) };

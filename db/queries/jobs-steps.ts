@@ -3,7 +3,7 @@ import "server-only";
 // amending a signed step. Every sign-off of the product is appended in this module or in jobs.ts
 // (release) and jobs-nc.ts (disposition) — the places a record chain hooks in.
 import { and, eq, sql } from "drizzle-orm";
-import { jobStep, signOff, weldPass } from "@/db/schema";
+import { jobStep, weldPass } from "@/db/schema";
 import { verifySigningPin } from "@/db/queries/people";
 import type { ShopContext } from "@/lib/auth/context";
 import { db } from "@/lib/db";
@@ -19,7 +19,7 @@ import { holdSeparation, priorWorkFrom, unsignedBefore } from "@/lib/jobs/state"
 import { parseValue } from "@/lib/jobs/values";
 import type { Step } from "@/lib/procedures/schema";
 import { heatInput } from "@/lib/welding";
-import { assertJobOpen, guarded, loadRecord, logActivity, refreshJobState, type Exec } from "./jobs-core";
+import { appendSignOff, assertJobOpen, guarded, loadRecord, logActivity, refreshJobState, type Exec } from "./jobs-core";
 
 export function findStep(record: JobRecord, stepId: string): StepView {
   const step = record.steps.find((s) => s.id === stepId);
@@ -190,13 +190,10 @@ export async function signStep(ctx: ShopContext, jobId: string, stepId: string, 
         const step = findStep(record, stepId);
         const plan = checkSignable(record, step, ctx, body.baseVersion);
         const { content, hash } = signedContent(record, step, plan.meaning, step.value, plan.acceptedUnder);
-        const [so] = await tx
-          .insert(signOff)
-          .values({ shopId: ctx.shopId, jobId, stepId, userId: ctx.userId, printedName: ctx.user.name, role: plan.role, meaning: plan.meaning, content, contentHash: hash })
-          .returning({ id: signOff.id, signedAt: signOff.signedAt });
+        const so = await appendSignOff(tx, { shopId: ctx.shopId, jobId, stepId, userId: ctx.userId, printedName: ctx.user.name, role: plan.role, meaning: plan.meaning, content, contentHash: hash });
         await tx
           .update(jobStep)
-          .set({ signedAt: so!.signedAt, version: sql`${jobStep.version} + 1` })
+          .set({ signedAt: so.signedAt, version: sql`${jobStep.version} + 1` })
           .where(and(eq(jobStep.id, stepId), eq(jobStep.jobId, jobId)));
         await logActivity(tx, {
           shopId: ctx.shopId,
@@ -204,11 +201,11 @@ export async function signStep(ctx: ShopContext, jobId: string, stepId: string, 
           actorId: ctx.userId,
           action: "step.signed",
           stepId,
-          detail: { signOffId: so!.id, meaning: plan.meaning, role: plan.role, contentHash: hash, acceptedUnder: plan.acceptedUnder },
+          detail: { signOffId: so.id, meaning: plan.meaning, role: plan.role, contentHash: hash, acceptedUnder: plan.acceptedUnder },
         });
         await refreshJobState(tx, ctx.shopId, jobId, ctx.userId);
         const after = await loadRecord(tx, ctx, jobId);
-        return { record: after, signOffId: so!.id };
+        return { record: after, signOffId: so.id };
       }),
     "This step was signed a moment ago by someone else.",
   );
@@ -248,25 +245,22 @@ export async function amendStep(ctx: ShopContext, jobId: string, stepId: string,
       db().transaction(async (tx) => {
         const { record, step, role, value, readiness } = await check(tx, true);
         const { content, hash } = signedContent(record, step, role.meaning, value, readiness.acceptedUnder, { signOffId: body.amendsSignOffId, reason: body.reason });
-        const [so] = await tx
-          .insert(signOff)
-          .values({
-            shopId: ctx.shopId,
-            jobId,
-            stepId,
-            userId: ctx.userId,
-            printedName: ctx.user.name,
-            role: role.role,
-            meaning: role.meaning,
-            content,
-            contentHash: hash,
-            amendsSignOffId: body.amendsSignOffId,
-            reason: body.reason,
-          })
-          .returning({ id: signOff.id });
-        await logActivity(tx, { shopId: ctx.shopId, jobId, actorId: ctx.userId, action: "step.amended", stepId, detail: { signOffId: so!.id, amends: body.amendsSignOffId, reason: body.reason, contentHash: hash } });
+        const so = await appendSignOff(tx, {
+          shopId: ctx.shopId,
+          jobId,
+          stepId,
+          userId: ctx.userId,
+          printedName: ctx.user.name,
+          role: role.role,
+          meaning: role.meaning,
+          content,
+          contentHash: hash,
+          amendsSignOffId: body.amendsSignOffId,
+          reason: body.reason,
+        });
+        await logActivity(tx, { shopId: ctx.shopId, jobId, actorId: ctx.userId, action: "step.amended", stepId, detail: { signOffId: so.id, amends: body.amendsSignOffId, reason: body.reason, contentHash: hash } });
         await refreshJobState(tx, ctx.shopId, jobId, ctx.userId);
-        return { record: await loadRecord(tx, ctx, jobId), signOffId: so!.id };
+        return { record: await loadRecord(tx, ctx, jobId), signOffId: so.id };
       }),
     "This step was amended a moment ago by someone else; review the latest amendment.",
   );

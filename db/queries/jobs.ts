@@ -3,7 +3,7 @@ import "server-only";
 // header edits, release and void, the activity log and the desks' "waiting for you" lists.
 import { and, asc, desc, eq, gte, inArray, lte, ne, notInArray, sql, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
-import { job, jobActivity, jobAssignment, jobCounter, jobStep, membership, procedure, procedureVersion, signOff, user } from "@/db/schema";
+import { job, jobActivity, jobAssignment, jobCounter, jobStep, membership, procedure, procedureVersion, user } from "@/db/schema";
 import { verifySigningPin } from "@/db/queries/people";
 import type { ShopContext } from "@/lib/auth/context";
 import { db } from "@/lib/db";
@@ -15,7 +15,7 @@ import type { JobListRow, JobRecord } from "@/lib/jobs/record";
 import type { CreateJobInput, ListJobsQuery, UpdateJobInput } from "@/lib/jobs/schemas";
 import { vinForJob } from "@/lib/jobs/vin";
 import { versionContentSchema } from "@/lib/procedures/schema";
-import { assertJobOpen, guarded, loadRecord, logActivity, type Exec } from "./jobs-core";
+import { appendSignOff, assertJobOpen, guarded, loadRecord, logActivity, type Exec } from "./jobs-core";
 
 const STATUS_ORDER = sql`case ${job.status} when 'on_hold' then 0 when 'in_progress' then 1 when 'planned' then 2 when 'ready_for_release' then 3 when 'released' then 4 else 5 end`;
 
@@ -312,24 +312,21 @@ export async function releaseJob(ctx: ShopContext, jobId: string, pin: string): 
           steps: record.steps.map((s) => ({ key: s.key, signOff: s.signOffs.at(-1)?.contentHash ?? null })),
           nonconformances: record.nonconformances.map((n) => ({ number: n.number, disposition: n.disposition?.disposition ?? null })),
         });
-        const [so] = await tx
-          .insert(signOff)
-          .values({
-            shopId: ctx.shopId,
-            jobId,
-            userId: ctx.userId,
-            printedName: ctx.user.name,
-            role: "lead",
-            meaning: "released",
-            content,
-            contentHash: contentHash(content),
-          })
-          .returning({ id: signOff.id, signedAt: signOff.signedAt });
+        const so = await appendSignOff(tx, {
+          shopId: ctx.shopId,
+          jobId,
+          userId: ctx.userId,
+          printedName: ctx.user.name,
+          role: "lead",
+          meaning: "released",
+          content,
+          contentHash: contentHash(content),
+        });
         await tx
           .update(job)
-          .set({ status: "released", releasedAt: so!.signedAt, releasedBy: ctx.userId, updatedAt: new Date() })
+          .set({ status: "released", releasedAt: so.signedAt, releasedBy: ctx.userId, updatedAt: new Date() })
           .where(and(eq(job.id, jobId), eq(job.shopId, ctx.shopId)));
-        await logActivity(tx, { shopId: ctx.shopId, jobId, actorId: ctx.userId, action: "job.released", detail: { signOffId: so!.id, from: record.job.status } });
+        await logActivity(tx, { shopId: ctx.shopId, jobId, actorId: ctx.userId, action: "job.released", detail: { signOffId: so.id, from: record.job.status } });
         return loadRecord(tx, ctx, jobId);
       }),
     "Someone released this job a moment ago.",

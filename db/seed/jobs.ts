@@ -13,13 +13,14 @@ import { meaningOf } from "@/lib/jobs/roles";
 import { deriveJobState } from "@/lib/jobs/state";
 import { vinForJob } from "@/lib/jobs/vin";
 import { versionContentSchema, type Step } from "@/lib/procedures/schema";
-import { contentHash } from "@/lib/seal";
+import { recordEntryFor } from "@/lib/records/entry";
+import { chainHash, contentHash, GENESIS_HASH } from "@/lib/seal";
 import { vinCheckDigit } from "@/lib/vin";
 
 type SeedDb = NodePgDatabase<typeof schema> | Parameters<Parameters<NodePgDatabase<typeof schema>["transaction"]>[0]>[0];
 type Person = { email: string; name: string; roles: readonly string[] };
 
-const { job, jobActivity, jobAssignment, jobCounter, jobStep, nonconformance, procedure, procedureVersion, signOff, user } = schema;
+const { job, jobActivity, jobAssignment, jobCounter, jobStep, nonconformance, procedure, procedureVersion, recordEntry, signOff, user } = schema;
 const DAY = 86_400_000;
 
 /** An invented VIN with its 49 CFR 565.15 check digit put in position 9. */
@@ -238,6 +239,9 @@ export async function seedJobs(db: SeedDb, shopId: string, people: readonly Pers
         ? plan.sign.keys
         : steps.slice(0, steps.findIndex((s) => s.step.key === (plan.sign as { until: string }).until)).map((s) => s.step.key);
     let at = createdAt.getTime() + 3_600_000;
+    // The record chain, as db/queries/records.ts appendToChain builds it for sign-offs made in the app.
+    let prevHash = GENESIS_HASH;
+    let seq = 0;
     for (const key of toSign) {
       const { step } = steps.find((s) => s.step.key === key)!;
       const stepId = stepRows.find((r) => r.key === key)!.id;
@@ -251,7 +255,12 @@ export async function seedJobs(db: SeedDb, shopId: string, people: readonly Pers
       const [so] = await db
         .insert(signOff)
         .values({ shopId, jobId, stepId, userId: signer.id, printedName: signer.name, role, meaning, signedAt, content, contentHash: hash })
-        .returning({ id: signOff.id });
+        .returning({ id: signOff.id, signedAt: signOff.signedAt });
+      const entry = recordEntryFor({ id: so!.id, jobId, stepId, nonconformanceId: null, userId: signer.id, printedName: signer.name, role, meaning, signedAt: so!.signedAt, contentHash: hash, amendsSignOffId: null, reason: null });
+      const chained = chainHash(prevHash, entry);
+      seq += 1;
+      await db.insert(recordEntry).values({ shopId, jobId, seq, signOffId: so!.id, prevHash, hash: chained });
+      prevHash = chained;
       await db.insert(jobActivity).values([
         { shopId, jobId, actorId: signer.id, action: "step.value_saved", stepId, detail: { version: 1, value }, at: signedAt },
         { shopId, jobId, actorId: signer.id, action: "step.signed", stepId, detail: { signOffId: so!.id, meaning, role, contentHash: hash, acceptedUnder: [] }, at: signedAt },

@@ -1,5 +1,6 @@
 import { beforeAll, describe, expect, it } from "vitest";
-import { contentHash } from "@/lib/seal";
+import { recordEntryFor } from "@/lib/records/entry";
+import { contentHash, verifyChain } from "@/lib/seal";
 import { vinCheckDigit } from "@/lib/vin";
 import { GEOMETRY_INPUT, insertPublishedProcedure, jobBody, MEASURING_PROCEDURE_CONTENT, SHORT_PROCEDURE_CONTENT, TEST_PROCEDURE_CONTENT } from "../fixtures/jobs/procedure";
 import { uploadFixture } from "./jobs-support";
@@ -214,6 +215,66 @@ describe("sign-offs", () => {
     expect(r.status).toBe(400);
     expect(Object.keys(r.json.error.fields)).toContain("reading");
     expect((await save(welder, rec, "c-clean", { confirmed: true, extra: 1 })).status).toBe(400);
+  });
+});
+
+async function chainOf(jobId: string) {
+  return withDb(async (c) => {
+    const entries = (await c.query("select seq, prev_hash, hash, sign_off_id from record_entry where job_id = $1 order by seq", [jobId])).rows;
+    const signOffs = (await c.query("select * from sign_off where job_id = $1", [jobId])).rows;
+    const byId = new Map(signOffs.map((s) => [s.id, s]));
+    const rows = entries.map((e) => {
+      const s = byId.get(e.sign_off_id);
+      return {
+        seq: e.seq,
+        prevHash: e.prev_hash,
+        hash: e.hash,
+        entry: recordEntryFor({ id: s.id, jobId: s.job_id, stepId: s.step_id, nonconformanceId: s.nonconformance_id, userId: s.user_id, printedName: s.printed_name, role: s.role, meaning: s.meaning, signedAt: s.signed_at, contentHash: s.content_hash, amendsSignOffId: s.amends_sign_off_id, reason: s.reason }),
+      };
+    });
+    return { signOffs: signOffs.length, verification: verifyChain(rows) };
+  });
+}
+
+describe("record chain", () => {
+  it("every sign-off (step, amendment, disposition, release) lands on the job's chain in its own transaction", async () => {
+    const rec = await newJob(shortVersionId);
+    const signed = await saveAndSign(welder, rec.job.id, "c-one", { confirmed: true });
+    const first = step(signed, "c-one").signOffs[0];
+    const amended = await api(`/api/jobs/${rec.job.id}/steps/${step(signed, "c-one").id}/amend`, { session: welder, body: { pin: PIN, amendsSignOffId: first.id, reason: "Note the wire wheel used", value: { confirmed: true, note: "Knotted wire wheel" } } });
+    expect(amended.status).toBe(201);
+    expect((await sign(inspector, rec.job.id, "h-one")).status).toBe(201);
+    expect((await api(`/api/jobs/${rec.job.id}/release`, { session: lead, body: { pin: PIN } })).status).toBe(200);
+    const chain = await chainOf(rec.job.id);
+    expect(chain.signOffs).toBe(4);
+    expect(chain.verification).toMatchObject({ intact: true, entries: 4 });
+  });
+
+  it("the demo seed's signed jobs carry their chain too", async () => {
+    const seeded = await withDb(async (c) => (await c.query("select id from job where axle_tag = 'AX-0412'")).rows[0]);
+    expect(seeded).toBeDefined();
+    const chain = await chainOf(seeded.id);
+    expect(chain.signOffs).toBeGreaterThan(10);
+    expect(chain.verification).toMatchObject({ intact: true, entries: chain.signOffs });
+  });
+});
+
+describe("job header", () => {
+  it("an edit names the version it saw; a stale one answers 409 with the current header", async () => {
+    const rec = await newJob();
+    const ids = await withDb(async (c) => (await c.query(`select id, email from "user" where email in ('welder@irongully.example', 'inspector@irongully.example')`)).rows);
+    const welderId = ids.find((r) => r.email === "welder@irongully.example").id;
+    const inspectorId = ids.find((r) => r.email === "inspector@irongully.example").id;
+    const first = await api(`/api/jobs/${rec.job.id}`, { session: lead, method: "PATCH", body: { baseVersion: rec.job.version, welderIds: [welderId], inspectorId, dueDate: "2026-03-14" } });
+    expect(first.status, first.text).toBe(200);
+    expect(first.json.job).toMatchObject({ welders: [{ name: "Mick Tamsin" }], inspector: { name: "Rosa Lindqvist" }, dueDate: "2026-03-14" });
+    const stale = await api(`/api/jobs/${rec.job.id}`, { session: lead, method: "PATCH", body: { baseVersion: rec.job.version, notes: "Overwrite?" } });
+    expect(stale.status).toBe(409);
+    expect(stale.json.error.current.dueDate).toBe("2026-03-14");
+    const notAWelder = await api(`/api/jobs/${rec.job.id}`, { session: lead, method: "PATCH", body: { baseVersion: first.json.job.version, welderIds: [inspectorId] } });
+    expect(notAWelder.status).toBe(400);
+    expect(notAWelder.json.error.fields.welderIds).toBeDefined();
+    expect((await api(`/api/jobs/${rec.job.id}`, { session: welder, method: "PATCH", body: { baseVersion: first.json.job.version, notes: "x" } })).status).toBe(403);
   });
 });
 
