@@ -27,7 +27,7 @@ test("an auditor scans a released job's traveller and sees the record intact; a 
   const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
   await db.connect();
   const versionId = await insertPublishedProcedure(db, { shopSlug: "iron-gully", ownerEmail: "lead@irongully.example", title: "Verify test procedure", content: SHORT_PROCEDURE_CONTENT });
-  const [lead, welder, inspector] = await Promise.all(["lead@irongully.example", "welder@irongully.example", "inspector@irongully.example"].map(apiAs));
+  const [lead, welder, inspector] = await Promise.all([apiAs("lead@irongully.example"), apiAs("welder@irongully.example"), apiAs("inspector@irongully.example")]);
   const body = jobBody(versionId);
   const created = await lead.post("/api/jobs", { data: body });
   expect(created.status()).toBe(201);

@@ -15,9 +15,13 @@ let lead: Session, welder: Session, inspector: Session, auditor: Session, otherL
 let versionId: string;
 
 beforeAll(async () => {
-  [lead, welder, inspector, auditor, otherLead] = await Promise.all(
-    ["lead@irongully.example", "welder@irongully.example", "inspector@irongully.example", "auditor@irongully.example", "lead@saltpan.example"].map((e) => session(e)),
-  );
+  [lead, welder, inspector, auditor, otherLead] = await Promise.all([
+    session("lead@irongully.example"),
+    session("welder@irongully.example"),
+    session("inspector@irongully.example"),
+    session("auditor@irongully.example"),
+    session("lead@saltpan.example"),
+  ]);
   versionId = await withDb((c) => insertPublishedProcedure(c, { shopSlug: "iron-gully", ownerEmail: "lead@irongully.example", title: "Traveller test procedure", content: SHORT_PROCEDURE_CONTENT }));
 });
 
