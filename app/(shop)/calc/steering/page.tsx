@@ -3,7 +3,8 @@ import { CalcCautions } from "@/components/calc/calc-cautions";
 import { PageHeader } from "@/components/page-header";
 import { SafetyNote } from "@/components/safety-note";
 import { requireShop } from "@/lib/auth/context";
-import { SteeringCalculator } from "./_components/steering-calculator";
+import { can } from "@/lib/authz";
+import { SteeringWorkbench } from "./_components/steering-workbench";
 
 export const metadata: Metadata = { title: "Steering links" };
 
@@ -20,7 +21,7 @@ export default async function SteeringPage() {
         <span aria-hidden="true" className="mr-1 font-bold">▲</span>
         <strong>Steering and axle-locating parts.</strong> A bad weld or a wrong geometry can put a vehicle off the road: measure twice, have the result checked, and road-test slowly.
       </p>
-      <SteeringCalculator initialUnits={ctx.unitSystem} />
+      <SteeringWorkbench initialUnits={ctx.unitSystem} canSave={can(ctx.roles, "step:sign")} />
       <div className="mt-8 max-w-4xl">
         <CalcCautions kind="steering" note={false} title="Steering parts: before you rely on this" />
       </div>
