@@ -7,6 +7,7 @@ import { and, desc, eq, inArray, sql } from "drizzle-orm";
 import type { NodePgDatabase } from "drizzle-orm/node-postgres";
 import * as schema from "@/db/schema";
 import { geometryResults } from "@/lib/jobs/geometry";
+import { recordContent } from "@/lib/jobs/content";
 import { stepContentHash } from "@/lib/jobs/hash";
 import { formatJobNumber } from "@/lib/jobs/number";
 import { meaningOf } from "@/lib/jobs/roles";
@@ -16,11 +17,12 @@ import { versionContentSchema, type Step } from "@/lib/procedures/schema";
 import { recordEntryFor } from "@/lib/records/entry";
 import { chainHash, contentHash, GENESIS_HASH } from "@/lib/seal";
 import { vinCheckDigit } from "@/lib/vin";
+import { heatInput } from "@/lib/welding";
 
 type SeedDb = NodePgDatabase<typeof schema> | Parameters<Parameters<NodePgDatabase<typeof schema>["transaction"]>[0]>[0];
 type Person = { email: string; name: string; roles: readonly string[] };
 
-const { job, jobActivity, jobAssignment, jobCounter, jobStep, nonconformance, procedure, procedureVersion, recordEntry, signOff, user } = schema;
+const { job, jobActivity, jobAssignment, jobCounter, jobStep, nonconformance, procedure, procedureVersion, recordEntry, signOff, user, weldPass } = schema;
 const DAY = 86_400_000;
 
 /** An invented VIN with its 49 CFR 565.15 check digit put in position 9. */
@@ -73,12 +75,26 @@ type Plan = {
   dueInDays: number;
   createdDaysAgo: number;
   notes: string;
-  /** steps to sign, in order, by step key; "until:<key>" signs every step before that key */
-  sign?: { until: string } | { keys: string[] };
+  /** steps to sign, in order, by step key; "until:<key>" signs every step before that key; "all" every step */
+  sign?: { until: string } | { keys: string[] } | { all: true };
+  /** released by the lead once every step is signed */
+  release?: boolean;
   nc?: { stepKey: string; value: Record<string, unknown>; description: string; proposed: "rework" | "repair" | "use_as_is" | "scrap" };
 };
 
 const PLANS: Plan[] = [
+  {
+    tag: "AX-0318",
+    procedureTitle: "Fitting and welding a weld-in lateral-link bracket at ride height",
+    customer: { name: "Mulga Flat Rural Supplies", phone: "+61 8 5550 0318", email: "delivery@mulgaflat.example" },
+    vehicle: { year: 2012, makeModel: "mid-size pickup, single cab", vin: vin("ZZGMP22K?CK700318") },
+    axle: "Front solid axle housing, lateral link bracket",
+    dueInDays: -4,
+    createdDaysAgo: 9,
+    notes: "Released: every joint accepted at its hold point.",
+    sign: { all: true },
+    release: true,
+  },
   {
     tag: "AX-1103",
     procedureTitle: "Fitting and welding a weld-in lateral-link bracket at ride height",
@@ -139,6 +155,32 @@ const PLANS: Plan[] = [
     notes: "Customer asks for photos of the old bracket before it is cut off.",
   },
 ];
+
+async function seedPass(db: SeedDb, p: { shopId: string; jobId: string; stepId: string; welderId: string; process: string; preheatC: number; at: Date }) {
+  const volts = 21.5, amps = 165, travel = 280;
+  const hi = heatInput({ process: p.process as never, volts, amps, travelSpeed: { value: travel, unit: "mm/min" } });
+  const pass = { passNumber: 1, welderId: p.welderId, process: p.process, volts, amps, travelSpeedMmPerMin: travel, preheatC: p.preheatC, interpassC: null, fillerLot: "ER70S-6 LOT 24-118", heatInputKJPerMm: hi.heatInputKJPerMm };
+  await db.insert(weldPass).values({
+    shopId: p.shopId,
+    jobId: p.jobId,
+    stepId: p.stepId,
+    passNumber: 1,
+    welderId: p.welderId,
+    process: p.process,
+    volts,
+    amps,
+    travelSpeedMmPerMin: travel,
+    travelSpeedUnit: "mm/min",
+    preheatC: p.preheatC,
+    interpassC: null,
+    fillerLot: pass.fillerLot,
+    arcEnergyKJPerMm: hi.arcEnergyKJPerMm,
+    heatInputKJPerMm: hi.heatInputKJPerMm,
+    clientKey: `seed-${p.stepId}-1`,
+    recordedAt: p.at,
+  });
+  return pass;
+}
 
 export async function seedJobs(db: SeedDb, shopId: string, people: readonly Person[]): Promise<string[]> {
   const created: string[] = [];
@@ -235,7 +277,9 @@ export async function seedJobs(db: SeedDb, shopId: string, people: readonly Pers
     // Sign the planned steps in order, an hour of work apart.
     const toSign = !plan.sign
       ? []
-      : "keys" in plan.sign
+      : "all" in plan.sign
+        ? steps.map((s) => s.step.key)
+        : "keys" in plan.sign
         ? plan.sign.keys
         : steps.slice(0, steps.findIndex((s) => s.step.key === (plan.sign as { until: string }).until)).map((s) => s.step.key);
     let at = createdAt.getTime() + 3_600_000;
@@ -249,8 +293,10 @@ export async function seedJobs(db: SeedDb, shopId: string, people: readonly Pers
       const meaning = meaningOf(step);
       const role = meaning === "inspected" ? "inspector" : step.signedBy === "lead" ? "lead" : "welder";
       const value = passingValue(step);
-      const { content, hash } = stepContentHash({ jobId, jobNumber: number, stepId, stepKey: key, kind: step.kind, specHash: contentHash(step), meaning, value, photos: [], passes: [], acceptedUnder: [] });
       const signedAt = new Date(Math.min(at, now - 60_000));
+      // A weld joint is signed over its passes: one pass inside the usual short-circuit GMAW window.
+      const passes = step.kind === "weld" ? [await seedPass(db, { shopId, jobId, stepId, welderId: welderUser.id, process: step.process, preheatC: Math.max(step.minPreheatC, 18), at: new Date(signedAt.getTime() - 600_000) })] : [];
+      const { content, hash } = stepContentHash({ jobId, jobNumber: number, stepId, stepKey: key, kind: step.kind, specHash: contentHash(step), meaning, value, photos: [], passes, acceptedUnder: [] });
       await db.update(jobStep).set({ value, version: 2, updatedBy: signer.id, updatedAt: signedAt, signedAt }).where(and(eq(jobStep.id, stepId), eq(jobStep.jobId, jobId)));
       const [so] = await db
         .insert(signOff)
@@ -274,20 +320,42 @@ export async function seedJobs(db: SeedDb, shopId: string, people: readonly Pers
       await db.insert(nonconformance).values({ shopId, jobId, stepId, number: 1, description: plan.nc.description, proposedDisposition: plan.nc.proposed, observed: plan.nc.value, raisedBy: welderUser.id, raisedAt });
       await db.insert(jobActivity).values({ shopId, jobId, actorId: welderUser.id, action: "nc.raised", stepId, detail: { number: 1, proposed: plan.nc.proposed, description: plan.nc.description, photos: 0 }, at: raisedAt });
     }
+    if (plan.release) {
+      const signedRows = await db.select({ stepId: signOff.stepId, contentHash: signOff.contentHash }).from(signOff).where(eq(signOff.jobId, jobId));
+      const content = recordContent("release", {
+        job: { id: jobId, number },
+        procedure: { versionId: version.id, number: version.number },
+        steps: steps.map(({ step }) => ({ key: step.key, signOff: signedRows.find((r) => r.stepId === stepRows.find((x) => x.key === step.key)!.id)?.contentHash ?? null })),
+        nonconformances: [],
+      });
+      const hash = contentHash(content);
+      const releasedAt = new Date(Math.min(at, now - 30_000));
+      const [so] = await db
+        .insert(signOff)
+        .values({ shopId, jobId, userId: lead.id, printedName: lead.name, role: "lead", meaning: "released", signedAt: releasedAt, content, contentHash: hash })
+        .returning({ id: signOff.id, signedAt: signOff.signedAt });
+      const entry = recordEntryFor({ id: so!.id, jobId, stepId: null, nonconformanceId: null, userId: lead.id, printedName: lead.name, role: "lead", meaning: "released", signedAt: so!.signedAt, contentHash: hash, amendsSignOffId: null, reason: null });
+      const chained = chainHash(prevHash, entry);
+      seq += 1;
+      await db.insert(recordEntry).values({ shopId, jobId, seq, signOffId: so!.id, prevHash, hash: chained });
+      prevHash = chained;
+      await db.insert(jobActivity).values({ shopId, jobId, actorId: lead.id, action: "job.released", detail: { signOffId: so!.id, from: "ready_for_release" }, at: releasedAt });
+    }
     const signedKeys = new Set(toSign);
     const status = deriveJobState({
       status: "planned",
       steps: steps.map(({ step }, i) => ({ id: step.key, key: step.key, title: step.title, kind: step.kind, position: i + 1, sectionKey: "", signed: signedKeys.has(step.key) })),
       openNonconformances: plan.nc ? 1 : 0,
     });
+    const released = plan.release ? { status: "released" as const, releasedAt: new Date(Math.min(at, now - 30_000)), releasedBy: lead.id } : { status };
     await db
       .update(job)
-      .set({ status, stepsSigned: signedKeys.size, openNonconformances: plan.nc ? 1 : 0, startedAt: signedKeys.size ? new Date(createdAt.getTime() + 3_600_000) : null, updatedAt: new Date(Math.min(at, now)) })
+      .set({ ...released, stepsSigned: signedKeys.size, openNonconformances: plan.nc ? 1 : 0, startedAt: signedKeys.size ? new Date(createdAt.getTime() + 3_600_000) : null, updatedAt: new Date(Math.min(at, now)) })
       .where(and(eq(job.id, jobId), eq(job.shopId, shopId)));
     if (status !== "planned") {
       await db.insert(jobActivity).values({ shopId, jobId, actorId: null, action: "job.state", detail: { from: "planned", to: status }, at: new Date(Math.min(at, now)) });
     }
-    created.push(`job ${number} (${status})`);
+    created.push(`job ${number} (${released.status})`);
   }
   return created;
 }
