@@ -8,7 +8,7 @@ import { verifySigningPin } from "@/db/queries/people";
 import type { ShopContext } from "@/lib/auth/context";
 import { db } from "@/lib/db";
 import { AppError } from "@/lib/errors";
-import { recordContent } from "@/lib/jobs/content";
+import { releaseContent } from "@/lib/jobs/content";
 import { contentHash } from "@/lib/jobs/hash";
 import { formatJobNumber } from "@/lib/jobs/number";
 import type { JobListRow, JobRecord } from "@/lib/jobs/record";
@@ -306,7 +306,7 @@ export async function releaseJob(ctx: ShopContext, jobId: string, pin: string): 
         const record = await loadRecord(tx, ctx, jobId, { lock: true });
         assertJobOpen(record);
         if (record.releaseBlockers.length) throw new AppError("conflict", `${record.job.number} cannot be released yet: ${record.releaseBlockers.join(" ")}`);
-        const content = recordContent("release", {
+        const content = releaseContent({
           job: { id: record.job.id, number: record.job.number },
           procedure: { versionId: record.job.procedureVersionId, number: record.job.procedureVersionNumber },
           steps: record.steps.map((s) => ({ key: s.key, signOff: s.signOffs.at(-1)?.contentHash ?? null })),

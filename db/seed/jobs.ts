@@ -7,7 +7,7 @@ import { and, desc, eq, inArray, sql } from "drizzle-orm";
 import type { NodePgDatabase } from "drizzle-orm/node-postgres";
 import * as schema from "@/db/schema";
 import { geometryResults } from "@/lib/jobs/geometry";
-import { recordContent } from "@/lib/jobs/content";
+import { releaseContent } from "@/lib/jobs/content";
 import { stepContentHash } from "@/lib/jobs/hash";
 import { formatJobNumber } from "@/lib/jobs/number";
 import { meaningOf } from "@/lib/jobs/roles";
@@ -322,7 +322,7 @@ export async function seedJobs(db: SeedDb, shopId: string, people: readonly Pers
     }
     if (plan.release) {
       const signedRows = await db.select({ stepId: signOff.stepId, contentHash: signOff.contentHash }).from(signOff).where(eq(signOff.jobId, jobId));
-      const content = recordContent("release", {
+      const content = releaseContent({
         job: { id: jobId, number },
         procedure: { versionId: version.id, number: version.number },
         steps: steps.map(({ step }) => ({ key: step.key, signOff: signedRows.find((r) => r.stepId === stepRows.find((x) => x.key === step.key)!.id)?.contentHash ?? null })),

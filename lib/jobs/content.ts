@@ -61,3 +61,13 @@ function stripUndefined(value: unknown): Record<string, unknown> {
 export function recordContent(kind: "disposition" | "release", body: Record<string, unknown>): Record<string, unknown> {
   return { schema: `gusset.${kind}-content/1`, ...stripUndefined(body) };
 }
+
+/** Content of the release sign-off: each step's latest signed hash, as the lead saw them when releasing. */
+export function releaseContent(r: {
+  job: { id: string; number: string };
+  procedure: { versionId: string; number: number };
+  steps: { key: string; signOff: string | null }[];
+  nonconformances: { number: number; disposition: string | null }[];
+}): Record<string, unknown> {
+  return recordContent("release", r);
+}
