@@ -55,6 +55,11 @@ export type Integrity = {
   reason?: string;
 };
 
+// The seal to print or show: the verified head, or the stored head of a chain that no longer verifies.
+export function shownIntegrity(i: Integrity): { intact: boolean; entries: number; seal: string | null } {
+  return { intact: i.intact, entries: i.entries, seal: i.intact ? i.seal : i.storedSeal };
+}
+
 // Recomputes the whole chain from the sign-off rows and names the first entry that no longer matches:
 // a changed sign-off, a changed content hash, a changed or missing chain entry, or a sign-off left off the chain.
 export async function verifyJobRecord(jobId: string, runner: Runner = db()): Promise<Integrity> {
@@ -121,7 +126,7 @@ export async function publicVerification(jobId: string): Promise<PublicVerificat
     shopId: j.shop_id,
     status: j.status,
     releasedAt: j.released_at ? new Date(j.released_at).toISOString() : null,
-    integrity: { intact: integrity.intact, entries: integrity.entries, seal: integrity.intact ? integrity.seal : integrity.storedSeal },
+    integrity: shownIntegrity(integrity),
     integrityDetail: integrity,
   };
 }

@@ -10,7 +10,7 @@ import { renderTraveller } from "@/lib/pdf";
 import { buildTravellerData } from "@/lib/traveller/build";
 import { getJobRecord } from "./jobs-core";
 import { photoForServing } from "./jobs-photos";
-import { tokenForJob, verifyJobRecord } from "./records";
+import { shownIntegrity, tokenForJob, verifyJobRecord } from "./records";
 import { publishedWpsByReference } from "./wps";
 
 export function verifyUrlFor(token: string) {
@@ -43,12 +43,13 @@ export async function travellerPdf(ctx: ShopContext, jobId: string, paper: "a4" 
     if (!thumb) continue;
     const bytes = thumb.bytes;
     // The contact sheet takes JPEG; thumbnails are re-encoded whatever they were stored as.
-    photos.push({ image: await sharp(bytes).jpeg({ quality: 80 }).toBuffer(), caption: p.caption || record.steps.find((s) => s.id === p.stepId)?.title || "", stepKey: record.steps.find((s) => s.id === p.stepId)?.key, takenAt: p.uploadedAt, sha256: p.sha256 });
+    const step = record.steps.find((s) => s.id === p.stepId);
+    photos.push({ image: await sharp(bytes).jpeg({ quality: 80 }).toBuffer(), caption: p.caption || step?.title || "", stepKey: step?.key, takenAt: p.uploadedAt, sha256: p.sha256 });
   }
   const data = buildTravellerData(record, {
     shopName: ctx.shop.name,
     versionHash: version?.contentHash ?? "0".repeat(64),
-    seal: { sha256: (integrity.intact ? integrity.seal : integrity.storedSeal) ?? "0".repeat(64), entries: integrity.entries },
+    seal: { sha256: shownIntegrity(integrity).seal ?? "0".repeat(64), entries: integrity.entries },
     verifyUrl: verifyUrlFor(token),
     paper,
     unitSystem: ctx.unitSystem,

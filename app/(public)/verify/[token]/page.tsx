@@ -9,11 +9,10 @@ import { can } from "@/lib/authz";
 import { getSessionUser, shopContextFor } from "@/lib/auth/context";
 import { AppError } from "@/lib/errors";
 import { clientAddress, limitOrThrow } from "@/lib/rate-limit";
+import { isVerifyToken } from "@/lib/records/token";
 
 export const metadata: Metadata = { title: "Check a traveller", robots: { index: false } };
 export const dynamic = "force-dynamic";
-
-const TOKEN = /^[A-Za-z0-9_-]{20,64}$/;
 
 export default async function VerifyPage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
@@ -25,7 +24,7 @@ export default async function VerifyPage({ params }: { params: Promise<{ token: 
     }
     throw error;
   }
-  const found = TOKEN.test(token) ? await jobIdForToken(token) : null;
+  const found = isVerifyToken(token) ? await jobIdForToken(token) : null;
   if (!found) notFound();
   const v = await publicVerification(found.jobId);
   const user = await getSessionUser();

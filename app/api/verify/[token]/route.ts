@@ -4,16 +4,15 @@ import { publicRoute } from "@/lib/api/route";
 import { can } from "@/lib/authz";
 import { AppError } from "@/lib/errors";
 import { clientAddress, limitOrThrow } from "@/lib/rate-limit";
+import { isVerifyToken } from "@/lib/records/token";
 
 export const dynamic = "force-dynamic";
-
-const TOKEN = /^[A-Za-z0-9_-]{20,64}$/;
 
 // Anyone with the traveller's code sees whether the record is intact; a member of the shop also gets the record.
 export const GET = publicRoute({}, async ({ req, params, ctx }) => {
   await limitOrThrow("verify", clientAddress(req.headers), { max: 60, windowSeconds: 60 });
   const token = typeof params.token === "string" ? params.token : "";
-  const found = TOKEN.test(token) ? await jobIdForToken(token) : null;
+  const found = isVerifyToken(token) ? await jobIdForToken(token) : null;
   if (!found) throw new AppError("not_found", "No record carries that code. Check it against the traveller.");
   const { shopId, integrityDetail, ...answer } = await publicVerification(found.jobId);
   const principal = await ctx.principal(shopId);

@@ -1,5 +1,5 @@
 import { getJobRecord } from "@/db/queries/jobs-core";
-import { verifyJobRecord } from "@/db/queries/records";
+import { shownIntegrity, verifyJobRecord } from "@/db/queries/records";
 import { shopRoute } from "@/lib/api/route";
 import { AppError } from "@/lib/errors";
 import { recordCsv } from "@/lib/records/csv";
@@ -11,7 +11,7 @@ export const GET = shopRoute({ action: "job:read" }, async ({ ctx, params }) => 
   if (!id) throw new AppError("not_found", "Job not found.");
   const record = await getJobRecord(ctx, id);
   const integrity = await verifyJobRecord(id);
-  const csv = recordCsv(record, { intact: integrity.intact, entries: integrity.entries, seal: integrity.intact ? integrity.seal : integrity.storedSeal });
+  const csv = recordCsv(record, shownIntegrity(integrity));
   return new Response(csv, {
     headers: {
       "Content-Type": "text/csv; charset=utf-8",
