@@ -9,13 +9,18 @@ import {
   job,
   jobActivity,
   jobAssignment,
+  jobMaterial,
   jobStep,
   nonconformance,
   nonconformanceDisposition,
   photo,
   signOff,
   user,
+  weldInspection,
   weldPass,
+  weldPassOverride,
+  wps,
+  wpsRevision,
 } from "@/db/schema";
 import type { ShopContext } from "@/lib/auth/context";
 import { appendToChain } from "@/db/queries/records";
@@ -23,7 +28,9 @@ import { db } from "@/lib/db";
 import { AppError } from "@/lib/errors";
 import { assembleRecord, type JobParts, type Viewer } from "@/lib/jobs/assemble";
 import type { JobStateName } from "@/lib/jobs/labels";
-import type { JobRecord, NonconformanceView, PassView, PhotoView, SignOffView } from "@/lib/jobs/record";
+import type { InspectionView, JobRecord, MaterialView, NonconformanceView, PassView, PhotoView, QualificationSummary, SignOffView, WpsSummary } from "@/lib/jobs/record";
+import { toWpsRanges } from "@/app/api/wps/schema";
+import { currentQualification } from "@/db/queries/qualifications";
 import { deriveJobState } from "@/lib/jobs/state";
 
 export type Exec = PgDatabase<NodePgQueryResultHKT, typeof schemaNs>;
@@ -130,6 +137,7 @@ export async function loadJobParts(x: Exec, shopId: string, jobId: string, opts:
         contentHash: signOff.contentHash,
         amendsSignOffId: signOff.amendsSignOffId,
         reason: signOff.reason,
+        round: signOff.round,
         value: sql<Record<string, unknown> | null>`${signOff.content} -> 'value'`,
       })
       .from(signOff)
@@ -173,13 +181,33 @@ export async function loadJobParts(x: Exec, shopId: string, jobId: string, opts:
         heatInputKJPerMm: weldPass.heatInputKJPerMm,
         recordedAt: weldPass.recordedAt,
         removedAt: weldPass.removedAt,
+        round: weldPass.round,
+        position: weldPass.position,
+        fillerClassification: weldPass.fillerClassification,
+        wpsRevisionId: weldPass.wpsRevisionId,
+        wpsReference: weldPass.wpsReference,
+        wpsRevisionNumber: weldPass.wpsRevisionNumber,
+        heatInputMethod: weldPass.heatInputMethod,
+        beadLengthMm: weldPass.beadLengthMm,
+        arcTimeS: weldPass.arcTimeS,
+        machineEnergyKJ: weldPass.machineEnergyKJ,
+        machinePowerW: weldPass.machinePowerW,
+        jPerIn: weldPass.jPerIn,
+        findings: weldPass.wpsFindings,
+        outOfRange: weldPass.outOfRange,
+        overrideReason: weldPassOverride.reason,
+        overrideById: weldPassOverride.leadId,
+        overrideByName: weldPassOverride.printedName,
+        overrideAt: weldPassOverride.at,
       })
       .from(weldPass)
       .innerJoin(user, eq(user.id, weldPass.welderId))
+      .leftJoin(weldPassOverride, eq(weldPassOverride.passId, weldPass.id))
       .where(eq(weldPass.jobId, jobId))
       .orderBy(asc(weldPass.stepId), asc(weldPass.passNumber)),
     loadNonconformances(x, jobId),
   ]);
+  const [inspections, materials, wpsSummaries] = await Promise.all([loadInspections(x, jobId), loadMaterials(x, jobId), loadWpsSummaries(x, shopId, steps.map((s) => s.spec))]);
 
   const header: JobParts["header"] = {
     id: h.id,
@@ -265,10 +293,102 @@ export async function loadJobParts(x: Exec, shopId: string, jobId: string, opts:
         heatInputKJPerMm: p.heatInputKJPerMm,
         recordedAt: p.recordedAt.toISOString(),
         removed: p.removedAt !== null,
+        round: p.round,
+        position: p.position,
+        fillerClassification: p.fillerClassification,
+        wps: { revisionId: p.wpsRevisionId, reference: p.wpsReference, number: p.wpsRevisionNumber },
+        heatInputMethod: p.heatInputMethod,
+        beadLengthMm: p.beadLengthMm,
+        arcTimeS: p.arcTimeS,
+        machineEnergyKJ: p.machineEnergyKJ,
+        machinePowerW: p.machinePowerW,
+        jPerIn: p.jPerIn,
+        findings: p.findings,
+        outOfRange: p.outOfRange,
+        override:
+          p.overrideReason && p.overrideById && p.overrideAt ? { reason: p.overrideReason, by: { id: p.overrideById, name: p.overrideByName ?? "" }, at: p.overrideAt.toISOString() } : null,
       }),
     ),
     nonconformances: ncs,
+    inspections,
+    materials,
+    wps: wpsSummaries,
+    qualifications: [],
   };
+}
+
+async function loadInspections(x: Exec, jobId: string): Promise<InspectionView[]> {
+  const rows = await x
+    .select({
+      id: weldInspection.id,
+      stepId: weldInspection.stepId,
+      round: weldInspection.round,
+      criteria: weldInspection.criteria,
+      observations: weldInspection.observations,
+      items: weldInspection.items,
+      judged: weldInspection.judged,
+      decision: weldInspection.decision,
+      notes: weldInspection.notes,
+      photoIds: weldInspection.photoIds,
+      inspectorId: weldInspection.inspectorId,
+      inspectorName: user.name,
+      signOffId: weldInspection.signOffId,
+      inspectedAt: weldInspection.inspectedAt,
+    })
+    .from(weldInspection)
+    .innerJoin(user, eq(user.id, weldInspection.inspectorId))
+    .where(eq(weldInspection.jobId, jobId))
+    .orderBy(asc(weldInspection.inspectedAt), asc(weldInspection.round));
+  return rows.map(({ inspectorId, inspectorName, inspectedAt, ...r }) => ({ ...r, inspector: { id: inspectorId, name: inspectorName }, inspectedAt: inspectedAt.toISOString() }));
+}
+
+async function loadMaterials(x: Exec, jobId: string): Promise<MaterialView[]> {
+  const rows = await x
+    .select({
+      id: jobMaterial.id,
+      kind: jobMaterial.kind,
+      description: jobMaterial.description,
+      specification: jobMaterial.specification,
+      heatNumber: jobMaterial.heatNumber,
+      certificate: jobMaterial.certificate,
+      correctsId: jobMaterial.correctsId,
+      withdrawn: jobMaterial.withdrawn,
+      reason: jobMaterial.reason,
+      recordedById: jobMaterial.recordedBy,
+      recordedByName: user.name,
+      recordedAt: jobMaterial.recordedAt,
+    })
+    .from(jobMaterial)
+    .innerJoin(user, eq(user.id, jobMaterial.recordedBy))
+    .where(eq(jobMaterial.jobId, jobId))
+    .orderBy(asc(jobMaterial.recordedAt), asc(jobMaterial.id));
+  const replaced = new Set(rows.map((r) => r.correctsId).filter(Boolean));
+  return rows.map(({ recordedById, recordedByName, recordedAt, ...r }) => ({
+    ...r,
+    recordedBy: { id: recordedById, name: recordedByName },
+    recordedAt: recordedAt.toISOString(),
+    superseded: replaced.has(r.id),
+  }));
+}
+
+/** The published revision of each WPS the job's weld steps name (a missing reference is simply absent). */
+async function loadWpsSummaries(x: Exec, shopId: string, specs: readonly { kind: string; wpsRef?: string }[]): Promise<WpsSummary[]> {
+  const refs = [...new Set(specs.filter((s) => s.kind === "weld" && s.wpsRef).map((s) => s.wpsRef!.trim().toUpperCase()))];
+  if (!refs.length) return [];
+  const rows = await x
+    .select({ reference: wps.reference, revision: wpsRevision })
+    .from(wpsRevision)
+    .innerJoin(wps, eq(wps.id, wpsRevision.wpsId))
+    .where(and(eq(wpsRevision.shopId, shopId), eq(wpsRevision.status, "published"), inArray(wps.reference, refs)));
+  return rows.map(({ reference, revision: r }) => ({
+    reference,
+    revisionId: r.id,
+    number: r.number,
+    title: r.title,
+    process: r.process,
+    positions: [...r.positions],
+    ranges: toWpsRanges(r as unknown as Parameters<typeof toWpsRanges>[0]),
+  }));
 }
 
 async function loadNonconformances(x: Exec, jobId: string): Promise<NonconformanceView[]> {
@@ -327,7 +447,20 @@ async function loadNonconformances(x: Exec, jobId: string): Promise<Nonconforman
 export async function loadRecord(x: Exec, ctx: ShopContext, jobId: string, opts: { lock?: boolean } = {}): Promise<JobRecord> {
   const parts = await loadJobParts(x, ctx.shopId, jobId, opts);
   if (!parts) throw new AppError("not_found", "Job not found.");
+  if (ctx.roles.includes("welder")) parts.qualifications = await viewerQualifications(x, ctx, parts);
   return assembleRecord(parts, viewerOf(ctx));
+}
+
+/** The viewer's continuity today for each process the job welds with, so the runner says so before a pass. */
+async function viewerQualifications(x: Exec, ctx: ShopContext, parts: JobParts): Promise<QualificationSummary[]> {
+  const processes = [...new Set(parts.steps.flatMap((s) => (s.spec.kind === "weld" ? [s.spec.process] : [])))];
+  const today = new Date().toISOString().slice(0, 10);
+  const out: QualificationSummary[] = [];
+  for (const process of processes) {
+    const q = await currentQualification({ shopId: ctx.shopId, welderUserId: ctx.userId, process, onDate: today }, x as never);
+    out.push({ process, ok: q.ok, reason: q.reason, lapsedOn: q.lapsedOn ?? null, expiresOn: q.expiresOn ?? null });
+  }
+  return out;
 }
 
 export async function getJobRecord(ctx: ShopContext, jobId: string): Promise<JobRecord> {
@@ -371,7 +504,12 @@ export async function refreshJobState(x: Exec, shopId: string, jobId: string, ac
     .leftJoin(nonconformanceDisposition, eq(nonconformanceDisposition.nonconformanceId, nonconformance.id))
     .where(and(eq(nonconformance.jobId, jobId), sql`${nonconformanceDisposition.id} is null`));
   const openNonconformances = open?.n ?? 0;
-  const checklist = steps.map((s) => ({ ...s, signed: s.signedAt !== null }));
+  // A weld step is done when the latest inspection of its joint accepted it.
+  const accepted = await x.execute<{ step_id: string }>(sql`
+    select distinct on (step_id) step_id, decision from ${weldInspection}
+    where job_id = ${jobId} order by step_id, round desc`);
+  const acceptedIds = new Set(accepted.rows.filter((r) => (r as { decision?: string }).decision === "accepted").map((r) => r.step_id));
+  const checklist = steps.map((s) => ({ ...s, signed: s.kind === "weld" ? acceptedIds.has(s.id) : s.signedAt !== null }));
   const next = deriveJobState({ status: current.status, steps: checklist, openNonconformances });
   if (current.status === "released" || current.status === "void") return current.status;
   const signed = checklist.filter((s) => s.signed).length;

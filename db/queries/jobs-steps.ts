@@ -3,7 +3,8 @@ import "server-only";
 // amending a signed step. Every sign-off of the product is appended in this module or in jobs.ts
 // (release) and jobs-nc.ts (disposition) — the places a record chain hooks in.
 import { and, eq, sql } from "drizzle-orm";
-import { jobStep, weldPass } from "@/db/schema";
+import { jobStep, weldPass, weldPassOverride } from "@/db/schema";
+import { currentQualification, recordProcessUse } from "@/db/queries/qualifications";
 import { verifySigningPin } from "@/db/queries/people";
 import type { ShopContext } from "@/lib/auth/context";
 import { db } from "@/lib/db";
@@ -15,11 +16,16 @@ import { contentHash } from "@/lib/seal";
 import type { JobRecord, StepView } from "@/lib/jobs/record";
 import { signingRole } from "@/lib/jobs/roles";
 import { stepReadiness } from "@/lib/jobs/readiness";
+import { holdWaitingReason } from "@/lib/jobs/assemble";
 import { holdSeparation, priorWorkFrom, unsignedBefore } from "@/lib/jobs/state";
 import { parseValue } from "@/lib/jobs/values";
-import type { Step } from "@/lib/procedures/schema";
-import { heatInput } from "@/lib/welding";
+import type { Step, WELD_PROCESSES } from "@/lib/procedures/schema";
+
+type WeldProcess = (typeof WELD_PROCESSES)[number];
+import type { WeldPassBody } from "@/lib/jobs/schemas";
+import { checkPassAgainstWps, passHeatInput } from "@/lib/welding";
 import { appendSignOff, assertJobOpen, guarded, loadRecord, logActivity, refreshJobState, type Exec } from "./jobs-core";
+import { mailJointReady } from "./jobs-welds";
 
 export function findStep(record: JobRecord, stepId: string): StepView {
   const step = record.steps.find((s) => s.id === stepId);
@@ -33,6 +39,11 @@ function assertUnsigned(step: StepView) {
   if (!step.signed) return;
   const first = step.signOffs[0];
   throw new AppError("conflict", `"${step.title}" was signed${first ? ` by ${first.printedName} at ${when(first.signedAt)}` : ""} and is frozen. Correct it with an amendment.`);
+}
+
+// A weld joint's note is signed with its first round and stays; repairs are told by their rounds.
+function assertWeldNoteOpen(step: StepView) {
+  if (step.joint && step.signOffs.length > 0) throw new AppError("conflict", `"${step.title}" has a signed round; its note is part of that record. Add what you need to say to the nonconformance or the next round.`);
 }
 
 function assertUnlocked(step: StepView) {
@@ -81,6 +92,7 @@ export async function saveStepValue(ctx: ShopContext, jobId: string, stepId: str
   assertJobOpen(pre);
   const step = findStep(pre, stepId);
   assertUnsigned(step);
+  assertWeldNoteOpen(step);
   assertUnlocked(step);
   assertRole(step, ctx);
   const value = normaliseValue(step.spec, body.value);
@@ -122,7 +134,8 @@ function checkSignable(record: JobRecord, step: StepView, ctx: ShopContext, base
   if (step.kind === "hold") {
     const waiting = unsignedBefore(record.steps, step);
     if (waiting.length) {
-      throw new AppError("conflict", `A hold point is signed once the work before it is done: ${waiting.length} ${waiting.length === 1 ? "step is" : "steps are"} not signed yet (first: "${waiting[0]!.title}").`);
+      const joints = new Map(record.steps.flatMap((s) => (s.joint ? [[s.id, s.joint] as const] : [])));
+      throw new AppError("conflict", holdWaitingReason(waiting, joints, waiting.map((w) => w.id)));
     }
     const earlierOpen = record.nonconformances.find((n) => n.disposition === null && (record.steps.find((s) => s.id === n.stepId)?.position ?? 0) < step.position);
     if (earlierOpen) throw new AppError("conflict", `NC-${earlierOpen.number} on "${earlierOpen.stepTitle}" is still open; it is dispositioned before this hold point is signed.`);
@@ -136,6 +149,9 @@ function checkSignable(record: JobRecord, step: StepView, ctx: ShopContext, base
 }
 
 function signedContent(record: JobRecord, step: StepView, meaning: string, value: Record<string, unknown> | null, acceptedUnder: number[], amends?: { signOffId: string; reason: string }) {
+  const joint = step.joint;
+  // A weld round signs its own passes; a repair round names the rejection it answers.
+  const repairOf = joint && joint.round > 1 ? (joint.rounds[joint.round - 2]?.inspection?.signOffId ?? null) : null;
   return stepContentHash({
     jobId: record.job.id,
     jobNumber: record.job.number,
@@ -147,7 +163,7 @@ function signedContent(record: JobRecord, step: StepView, meaning: string, value
     value,
     photos: record.photos.filter((p) => p.stepId === step.id && !p.removed).map((p) => ({ id: p.id, sha256: p.sha256 })),
     passes: record.passes
-      .filter((p) => p.stepId === step.id && !p.removed)
+      .filter((p) => p.stepId === step.id && !p.removed && (!joint || p.round === joint.round))
       .map((p) => ({
         passNumber: p.passNumber,
         welderId: p.welder.id,
@@ -159,14 +175,24 @@ function signedContent(record: JobRecord, step: StepView, meaning: string, value
         interpassC: p.interpassC,
         fillerLot: p.fillerLot,
         heatInputKJPerMm: p.heatInputKJPerMm,
+        ...(joint
+          ? {
+              round: p.round,
+              position: p.position,
+              wps: { reference: p.wps.reference, revision: p.wps.number },
+              outOfRange: p.outOfRange,
+              override: p.override ? { leadId: p.override.by.id, reason: p.override.reason } : null,
+            }
+          : {}),
       })),
     acceptedUnder,
     amends,
+    round: joint ? { number: joint.round, repairOf } : undefined,
   });
 }
 
 /** A wrong PIN is counted by verifySigningPin; the attempt is also written to the job's activity log. */
-async function verifyPinLogged(ctx: ShopContext, jobId: string, stepId: string | null, pin: string) {
+export async function verifyPinLogged(ctx: ShopContext, jobId: string, stepId: string | null, pin: string) {
   try {
     await verifySigningPin({ shopId: ctx.shopId, userId: ctx.userId, pin });
   } catch (error) {
@@ -183,17 +209,18 @@ export async function signStep(ctx: ShopContext, jobId: string, stepId: string, 
   const pre = await loadRecord(db(), ctx, jobId);
   checkSignable(pre, findStep(pre, stepId), ctx, body.baseVersion);
   await verifyPinLogged(ctx, jobId, stepId, body.pin);
-  return guarded(
+  const result = await guarded(
     () =>
       db().transaction(async (tx) => {
         const record = await loadRecord(tx, ctx, jobId, { lock: true });
         const step = findStep(record, stepId);
         const plan = checkSignable(record, step, ctx, body.baseVersion);
         const { content, hash } = signedContent(record, step, plan.meaning, step.value, plan.acceptedUnder);
-        const so = await appendSignOff(tx, { shopId: ctx.shopId, jobId, stepId, userId: ctx.userId, printedName: ctx.user.name, role: plan.role, meaning: plan.meaning, content, contentHash: hash });
+        const round = step.joint?.round ?? null;
+        const so = await appendSignOff(tx, { shopId: ctx.shopId, jobId, stepId, userId: ctx.userId, printedName: ctx.user.name, role: plan.role, meaning: plan.meaning, content, contentHash: hash, round });
         await tx
           .update(jobStep)
-          .set({ signedAt: so.signedAt, version: sql`${jobStep.version} + 1` })
+          .set({ signedAt: sql`coalesce(${jobStep.signedAt}, ${so.signedAt.toISOString()}::timestamptz)`, version: sql`${jobStep.version} + 1` })
           .where(and(eq(jobStep.id, stepId), eq(jobStep.jobId, jobId)));
         await logActivity(tx, {
           shopId: ctx.shopId,
@@ -201,7 +228,7 @@ export async function signStep(ctx: ShopContext, jobId: string, stepId: string, 
           actorId: ctx.userId,
           action: "step.signed",
           stepId,
-          detail: { signOffId: so.id, meaning: plan.meaning, role: plan.role, contentHash: hash, acceptedUnder: plan.acceptedUnder },
+          detail: { signOffId: so.id, meaning: plan.meaning, role: plan.role, contentHash: hash, acceptedUnder: plan.acceptedUnder, ...(round ? { round } : {}) },
         });
         await refreshJobState(tx, ctx.shopId, jobId, ctx.userId);
         const after = await loadRecord(tx, ctx, jobId);
@@ -209,6 +236,9 @@ export async function signStep(ctx: ShopContext, jobId: string, stepId: string, 
       }),
     "This step was signed a moment ago by someone else.",
   );
+  // A signed weld round is ready for inspection: tell the inspector. The mail never holds up the record.
+  if (findStep(result.record, stepId).joint) await mailJointReady(ctx, result.record, stepId);
+  return result;
 }
 
 export async function amendStep(ctx: ShopContext, jobId: string, stepId: string, body: { pin: string; amendsSignOffId: string; reason: string; value: Record<string, unknown> }) {
@@ -216,6 +246,7 @@ export async function amendStep(ctx: ShopContext, jobId: string, stepId: string,
     const record = await loadRecord(x, ctx, jobId, { lock });
     assertJobOpen(record);
     const step = findStep(record, stepId);
+    if (step.joint) throw new AppError("conflict", `A weld joint is not amended: a rejected joint is repaired in a new round and inspected again.`);
     if (!step.signed) throw new AppError("conflict", `"${step.title}" is not signed yet; change its value directly.`);
     const role = assertRole(step, ctx);
     const latest = step.signOffs.filter((o) => !step.signOffs.some((x2) => x2.amendsSignOffId === o.id)).at(-1);
@@ -266,15 +297,67 @@ export async function amendStep(ctx: ShopContext, jobId: string, stepId: string,
   );
 }
 
-export type PassInput = {
-  clientKey: string;
-  volts: number;
-  amps: number;
-  travelSpeed: { value: number; unit: "mm/min" | "in/min" };
-  preheatC: number;
-  interpassC?: number | undefined;
-  fillerLot: string;
+export type PassInput = WeldPassBody;
+
+/** The joint of a weld step, or a refusal when the step is not one. */
+function jointOf(step: StepView) {
+  if (step.spec.kind !== "weld" || !step.joint) throw new AppError("bad_request", "Weld passes are recorded on weld steps only.");
+  return { spec: step.spec, joint: step.joint };
+}
+
+/** A pass is recorded while its joint's round is open: before its welder signs it, or after a rejection. */
+function assertRoundOpen(step: StepView) {
+  const { spec, joint } = jointOf(step);
+  if (joint.state === "accepted") throw new AppError("conflict", `Joint ${spec.jointId} is inspected and accepted; nothing more is welded on it.`);
+  if (joint.state === "awaiting_inspection") {
+    throw new AppError("conflict", `${joint.round > 1 ? `Repair round ${joint.round}` : "Round 1"} of joint ${spec.jointId} is signed and waits for the inspector; passes are recorded again only if it is rejected.`);
+  }
+  return { spec, joint };
+}
+
+type PassFigures = {
+  travelSpeedMmPerMin: number;
+  arcEnergyKJPerMm: number;
+  heatInputKJPerMm: number;
+  jPerIn: number;
+  method: "voltage-current" | "energy" | "power";
+  beadLengthMm: number | null;
 };
+
+/** Heat input by ASME IX QW-409.1 (a) or (c) and ISO/TR 17671-1; a machine reading wins over V·A/v. */
+export function passFigures(process: WeldProcess, input: PassInput): PassFigures {
+  const beadLength = input.beadLength ? { value: input.beadLength.value, unit: input.beadLength.unit } : undefined;
+  const beadLengthMm = beadLength ? (beadLength.unit === "in" ? beadLength.value * 25.4 : beadLength.value) : null;
+  try {
+    const a = input.travelSpeed
+      ? passHeatInput({ method: "voltage-current", process, volts: input.volts, amps: input.amps, travelSpeed: input.travelSpeed })
+      : input.beadLength && input.arcTimeS !== undefined
+        ? passHeatInput({ method: "voltage-current", process, volts: input.volts, amps: input.amps, beadLength: beadLength!, arcTimeS: input.arcTimeS })
+        : null;
+    const c =
+      input.machineEnergyKJ !== undefined
+        ? passHeatInput({ method: "energy", process, energyJ: input.machineEnergyKJ * 1000, beadLength: beadLength!, ...(input.arcTimeS !== undefined ? { arcTimeS: input.arcTimeS } : {}) })
+        : input.machinePowerW !== undefined
+          ? passHeatInput({ method: "power", process, powerW: input.machinePowerW, arcTimeS: input.arcTimeS!, beadLength: beadLength! })
+          : null;
+    const used = c ?? a;
+    const speed = a?.travelSpeedMmPerMin ?? c?.travelSpeedMmPerMin ?? null;
+    if (!used || speed === null) {
+      throw new AppError("unprocessable", "The travel speed cannot be worked out: give it, or the bead length and the arc time.", { travelSpeed: ["Enter the travel speed, or the bead length and the arc time."] });
+    }
+    return {
+      travelSpeedMmPerMin: speed,
+      arcEnergyKJPerMm: used.arcEnergyKJPerMm,
+      heatInputKJPerMm: used.heatInputKJPerMm ?? used.arcEnergyKJPerMm,
+      jPerIn: used.jPerIn,
+      method: used.method,
+      beadLengthMm,
+    };
+  } catch (error) {
+    if (error instanceof RangeError) throw new AppError("unprocessable", `The heat input cannot be worked out: ${error.message}.`);
+    throw error;
+  }
+}
 
 export async function recordWeldPass(ctx: ShopContext, jobId: string, stepId: string, input: PassInput) {
   const [existing] = await db()
@@ -288,11 +371,10 @@ export async function recordWeldPass(ctx: ShopContext, jobId: string, stepId: st
   const pre = await loadRecord(db(), ctx, jobId);
   assertJobOpen(pre);
   const step = findStep(pre, stepId);
-  if (step.spec.kind !== "weld") throw new AppError("bad_request", "Weld passes are recorded on weld steps only.");
-  assertUnsigned(step);
+  jointOf(step);
   assertUnlocked(step);
+  const { spec } = assertRoundOpen(step);
   if (!ctx.roles.includes("welder")) throw new AppError("forbidden", "Only a welder records weld passes.");
-  const spec = step.spec;
   if (input.preheatC < spec.minPreheatC) {
     throw new AppError(
       "unprocessable",
@@ -300,14 +382,42 @@ export async function recordWeldPass(ctx: ShopContext, jobId: string, stepId: st
       { preheatC: [`At least ${spec.minPreheatC} °C.`] },
     );
   }
-  const hi = heatInput({ process: spec.process, volts: input.volts, amps: input.amps, travelSpeed: input.travelSpeed });
-  const mmPerMin = input.travelSpeed.unit === "in/min" ? input.travelSpeed.value * 25.4 : input.travelSpeed.value;
+  const wpsRev = pre.wps.find((w) => w.reference === spec.wpsRef.trim().toUpperCase());
+  if (!wpsRev) {
+    throw new AppError("unprocessable", `Joint ${spec.jointId} is welded to ${spec.wpsRef}, which has no published revision in this shop's WPS library. A lead publishes it before the joint is welded.`);
+  }
+  if (wpsRev.process && wpsRev.process !== spec.process) {
+    throw new AppError("unprocessable", `${wpsRev.reference} is a ${wpsRev.process} procedure, but joint ${spec.jointId} is welded ${spec.process}. A lead corrects the procedure or the WPS first.`);
+  }
+  const today = new Date().toISOString().slice(0, 10);
+  const qualification = await currentQualification({ shopId: ctx.shopId, welderUserId: ctx.userId, process: spec.process, onDate: today });
+  if (!qualification.ok) {
+    throw new AppError("forbidden", qualification.reason, undefined, { qualification: { process: spec.process, lapsedOn: qualification.lapsedOn ?? null } });
+  }
+  const figures = passFigures(spec.process, input);
+  const position = input.position ?? spec.position;
+  const basis = wpsRev.ranges.heatInputBasis ?? "arc-energy";
+  const check = checkPassAgainstWps(
+    { ...wpsRev.ranges, positions: wpsRev.positions },
+    {
+      process: spec.process,
+      volts: input.volts,
+      amps: input.amps,
+      travelSpeedMmPerMin: figures.travelSpeedMmPerMin,
+      // A machine reading (QW-409.1(c)) is the measured figure on the WPS's basis.
+      ...(figures.method !== "voltage-current" ? { heatInputKJPerMm: basis === "iso-q" ? figures.heatInputKJPerMm : figures.arcEnergyKJPerMm } : {}),
+      preheatC: input.preheatC,
+      ...(input.interpassC !== undefined ? { interpassC: input.interpassC } : {}),
+      position,
+    },
+  );
+  if (check.blocked) throw new AppError("unprocessable", `${check.blockedReason} (${wpsRev.reference} revision ${wpsRev.number})`, { preheatC: [check.blockedReason ?? ""] });
   return guarded(
     () =>
       db().transaction(async (tx) => {
         const record = await loadRecord(tx, ctx, jobId, { lock: true });
         assertJobOpen(record);
-        assertUnsigned(findStep(record, stepId));
+        const { joint } = assertRoundOpen(findStep(record, stepId));
         const [max] = await tx.select({ n: sql<number>`coalesce(max(${weldPass.passNumber}), 0)::int` }).from(weldPass).where(eq(weldPass.stepId, stepId));
         const passNumber = (max?.n ?? 0) + 1;
         const [row] = await tx
@@ -317,31 +427,91 @@ export async function recordWeldPass(ctx: ShopContext, jobId: string, stepId: st
             jobId,
             stepId,
             passNumber,
+            round: joint.round,
             welderId: ctx.userId,
             process: spec.process,
+            position,
+            fillerClassification: spec.filler,
+            wpsRevisionId: wpsRev.revisionId,
+            wpsReference: wpsRev.reference,
+            wpsRevisionNumber: wpsRev.number,
             volts: input.volts,
             amps: input.amps,
-            travelSpeedMmPerMin: mmPerMin,
-            travelSpeedUnit: input.travelSpeed.unit,
+            travelSpeedMmPerMin: figures.travelSpeedMmPerMin,
+            travelSpeedUnit: input.travelSpeed?.unit ?? (input.beadLength?.unit === "in" ? "in/min" : "mm/min"),
+            beadLengthMm: figures.beadLengthMm,
+            arcTimeS: input.arcTimeS ?? null,
+            machineEnergyKJ: input.machineEnergyKJ ?? null,
+            machinePowerW: input.machinePowerW ?? null,
+            heatInputMethod: figures.method,
+            jPerIn: figures.jPerIn,
             preheatC: input.preheatC,
             interpassC: input.interpassC ?? null,
             fillerLot: input.fillerLot,
-            arcEnergyKJPerMm: hi.arcEnergyKJPerMm,
-            heatInputKJPerMm: hi.heatInputKJPerMm,
+            arcEnergyKJPerMm: figures.arcEnergyKJPerMm,
+            heatInputKJPerMm: figures.heatInputKJPerMm,
+            wpsFindings: check.findings,
+            outOfRange: check.outOfRange || check.incomplete,
             clientKey: input.clientKey,
           })
           .returning({ id: weldPass.id });
+        // Continuity: every pass is a use of the process by its welder (ASME IX QW-322.1, AWS D1.1).
+        await recordProcessUse(tx as never, { shopId: ctx.shopId, welderUserId: ctx.userId, process: spec.process, date: new Date() });
         await logActivity(tx, {
           shopId: ctx.shopId,
           jobId,
           actorId: ctx.userId,
           action: "weld_pass.recorded",
           stepId,
-          detail: { passNumber, joint: spec.jointId, heatInputKJPerMm: hi.heatInputKJPerMm, preheatC: input.preheatC },
+          detail: {
+            passNumber,
+            round: joint.round,
+            joint: spec.jointId,
+            wps: `${wpsRev.reference} rev ${wpsRev.number}`,
+            heatInputKJPerMm: figures.heatInputKJPerMm,
+            preheatC: input.preheatC,
+            outOfRange: check.outOfRange || check.incomplete,
+            findings: check.findings.filter((f) => !f.ok).map((f) => f.message),
+          },
         });
         return { record: await loadRecord(tx, ctx, jobId), passId: row!.id, created: true };
       }),
     "That pass was recorded a moment ago.",
+  );
+}
+
+/** A lead accepts an out-of-range pass as welded, with a reason and their PIN; the round's sign-off carries it. */
+export async function overrideWeldPass(ctx: ShopContext, jobId: string, stepId: string, passId: string, body: { reason: string; pin: string }) {
+  const check = (record: JobRecord) => {
+    assertJobOpen(record);
+    const step = findStep(record, stepId);
+    const { spec, joint } = assertRoundOpen(step);
+    const pass = record.passes.find((p) => p.id === passId && p.stepId === stepId);
+    if (!pass || pass.removed) throw new AppError("not_found", "Weld pass not found on this joint.");
+    if (pass.round !== joint.round) throw new AppError("conflict", `Pass ${pass.passNumber} belongs to round ${pass.round}, which is closed.`);
+    if (!pass.outOfRange) throw new AppError("conflict", `Pass ${pass.passNumber} of joint ${spec.jointId} is within its WPS; there is nothing to override.`);
+    if (pass.override) throw new AppError("conflict", `${pass.override.by.name} already accepted pass ${pass.passNumber}: "${pass.override.reason}".`);
+    if (pass.welder.id === ctx.userId) throw new AppError("forbidden", `You welded pass ${pass.passNumber}, so another lead decides on it: nobody passes their own work.`);
+    return { spec, pass };
+  };
+  check(await loadRecord(db(), ctx, jobId));
+  await verifyPinLogged(ctx, jobId, stepId, body.pin);
+  return guarded(
+    () =>
+      db().transaction(async (tx) => {
+        const { spec, pass } = check(await loadRecord(tx, ctx, jobId, { lock: true }));
+        await tx.insert(weldPassOverride).values({ shopId: ctx.shopId, jobId, stepId, passId, reason: body.reason, leadId: ctx.userId, printedName: ctx.user.name });
+        await logActivity(tx, {
+          shopId: ctx.shopId,
+          jobId,
+          actorId: ctx.userId,
+          action: "weld_pass.overridden",
+          stepId,
+          detail: { passNumber: pass.passNumber, joint: spec.jointId, reason: body.reason, findings: pass.findings.filter((f) => !f.ok).map((f) => f.message) },
+        });
+        return loadRecord(tx, ctx, jobId);
+      }),
+    "That pass was decided on a moment ago.",
   );
 }
 
@@ -352,10 +522,11 @@ export async function strikeWeldPass(ctx: ShopContext, jobId: string, stepId: st
         const record = await loadRecord(tx, ctx, jobId, { lock: true });
         assertJobOpen(record);
         const step = findStep(record, stepId);
-        assertUnsigned(step);
+        const { joint } = assertRoundOpen(step);
         const pass = record.passes.find((p) => p.id === passId && p.stepId === stepId);
         if (!pass) throw new AppError("not_found", "Weld pass not found on this step.");
         if (pass.removed) return record;
+        if (pass.round !== joint.round) throw new AppError("conflict", `Pass ${pass.passNumber} belongs to round ${pass.round}, which is signed; it stays on the record.`);
         if (pass.welder.id !== ctx.userId) throw new AppError("forbidden", `Only ${pass.welder.name}, who recorded pass ${pass.passNumber}, can strike it out.`);
         await tx
           .update(weldPass)

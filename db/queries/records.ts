@@ -23,6 +23,7 @@ const signOffColumns = {
   contentHash: signOff.contentHash,
   amendsSignOffId: signOff.amendsSignOffId,
   reason: signOff.reason,
+  round: signOff.round,
   content: signOff.content,
 };
 

@@ -4,6 +4,7 @@
 import { sql, type SQL } from "drizzle-orm";
 import {
   type AnyPgColumn,
+  boolean,
   check,
   date,
   doublePrecision,
@@ -18,9 +19,11 @@ import {
   uuid,
 } from "drizzle-orm/pg-core";
 import type { Step, StepKind } from "@/lib/procedures/schema";
+import type { VisualCriteria, VisualItemResult, VisualObservations, WpsFinding } from "@/lib/welding";
 import { user } from "./auth";
 import { procedure, procedureVersion } from "./procedures";
 import { shop } from "./shops";
+import { wpsRevision } from "./welding";
 
 export const JOB_STATES = ["planned", "in_progress", "on_hold", "ready_for_release", "released", "void"] as const;
 export type JobState = (typeof JOB_STATES)[number];
@@ -162,12 +165,17 @@ export const signOff = pgTable(
     contentHash: text("content_hash").notNull(),
     amendsSignOffId: uuid("amends_sign_off_id").references((): AnyPgColumn => signOff.id),
     reason: text("reason"),
+    // Weld joints are welded and inspected in rounds (1, then one per repair); null elsewhere.
+    round: integer("round"),
   },
   (t) => [
     index("sign_off_job_idx").on(t.jobId, t.signedAt),
     index("sign_off_user_idx").on(t.shopId, t.userId),
     // One original sign-off per step and meaning; corrections are amendments pointing at it.
-    uniqueIndex("sign_off_step_original_idx").on(t.stepId, t.meaning).where(sql`${t.amendsSignOffId} is null and ${t.stepId} is not null`),
+    // A weld joint gets one "performed" and one "inspected" sign-off per round.
+    uniqueIndex("sign_off_step_round_idx")
+      .on(t.stepId, t.meaning, sql`coalesce(${t.round}, 1)`)
+      .where(sql`${t.amendsSignOffId} is null and ${t.stepId} is not null`),
     uniqueIndex("sign_off_release_idx").on(t.jobId).where(sql`${t.meaning} = 'released'`),
     uniqueIndex("sign_off_nc_idx").on(t.nonconformanceId).where(sql`${t.nonconformanceId} is not null`),
     check("sign_off_amendment_reason", sql`${t.amendsSignOffId} is null or length(trim(${t.reason})) > 0`),
@@ -243,8 +251,9 @@ export const photo = pgTable(
   ],
 );
 
-// One row per weld pass, keyed by job + step. The WPS library, qualifications and the visual inspection
-// form are built on these rows later; values are SI (V, A, mm/min, °C, kJ/mm).
+// One row per weld pass, keyed by job + step and the joint's round (1, then one per repair). Values are SI
+// (V, A, mm/min, °C, kJ/mm). The pass is checked against the published WPS revision it was welded to; its
+// findings are kept with it, and an out-of-range pass needs a nonconformance or a lead's override.
 export const weldPass = pgTable(
   "weld_pass",
   {
@@ -264,6 +273,21 @@ export const weldPass = pgTable(
     fillerLot: text("filler_lot").notNull(),
     arcEnergyKJPerMm: doublePrecision("arc_energy_kj_per_mm").notNull(),
     heatInputKJPerMm: doublePrecision("heat_input_kj_per_mm").notNull(),
+    round: integer("round").notNull().default(1),
+    position: text("position").notNull().default(""),
+    fillerClassification: text("filler_classification").notNull().default(""),
+    wpsRevisionId: uuid("wps_revision_id").references(() => wpsRevision.id),
+    wpsReference: text("wps_reference").notNull().default(""),
+    wpsRevisionNumber: integer("wps_revision_number"),
+    // How heat input was found: ASME IX QW-409.1 (a) from V·A/speed, or (c) from the machine's energy or power.
+    heatInputMethod: text("heat_input_method", { enum: ["voltage-current", "energy", "power"] }).notNull().default("voltage-current"),
+    beadLengthMm: doublePrecision("bead_length_mm"),
+    arcTimeS: doublePrecision("arc_time_s"),
+    machineEnergyKJ: doublePrecision("machine_energy_kj"),
+    machinePowerW: doublePrecision("machine_power_w"),
+    jPerIn: doublePrecision("j_per_in"),
+    wpsFindings: jsonb("wps_findings").$type<WpsFinding[]>().notNull().default([]),
+    outOfRange: boolean("out_of_range").notNull().default(false),
     clientKey: text("client_key").notNull(),
     recordedAt: timestamp("recorded_at", { withTimezone: true }).notNull().defaultNow(),
     // Struck out by its welder before the step was signed (a mistyped pass); the row stays.
@@ -275,6 +299,88 @@ export const weldPass = pgTable(
     uniqueIndex("weld_pass_client_key_idx").on(t.shopId, t.clientKey),
     index("weld_pass_job_idx").on(t.jobId, t.stepId),
     index("weld_pass_welder_idx").on(t.shopId, t.welderId),
+    check("weld_pass_round", sql`${t.round} >= 1`),
+  ],
+);
+
+// A lead accepts an out-of-range pass with a reason (PIN-verified); the welder's sign-off of the round then
+// carries it. One per pass, never changed (db/sql/050-welds.sql).
+export const weldPassOverride = pgTable(
+  "weld_pass_override",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    shopId: uuid("shop_id").notNull().references(() => shop.id),
+    jobId: uuid("job_id").notNull().references(() => job.id),
+    stepId: uuid("step_id").notNull().references(() => jobStep.id),
+    passId: uuid("pass_id").notNull().references(() => weldPass.id),
+    reason: text("reason").notNull(),
+    leadId: text("lead_id").notNull().references(() => user.id),
+    printedName: text("printed_name").notNull(),
+    at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("weld_pass_override_pass_idx").on(t.passId), check("weld_pass_override_reason", sql`length(trim(${t.reason})) >= 5`)],
+);
+
+export const INSPECTION_DECISIONS = ["accepted", "rejected"] as const;
+export type InspectionDecision = (typeof INSPECTION_DECISIONS)[number];
+
+// One visual inspection per weld joint and round, signed with the inspector's PIN ("inspected"). A
+// rejection opens the next round (repair passes); every round stays on the record in order.
+export const weldInspection = pgTable(
+  "weld_inspection",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    shopId: uuid("shop_id").notNull().references(() => shop.id),
+    jobId: uuid("job_id").notNull().references(() => job.id),
+    stepId: uuid("step_id").notNull().references(() => jobStep.id),
+    round: integer("round").notNull(),
+    criteria: text("criteria").$type<VisualCriteria>().notNull(),
+    observations: jsonb("observations").$type<VisualObservations>().notNull(),
+    // What the criteria said of the observations (lib/welding judgeVisual), limits included.
+    items: jsonb("items").$type<VisualItemResult[]>().notNull(),
+    judged: text("judged", { enum: ["accept", "reject"] }).notNull(),
+    decision: text("decision", { enum: INSPECTION_DECISIONS }).notNull(),
+    notes: text("notes").notNull().default(""),
+    photoIds: uuid("photo_ids").array().notNull(),
+    inspectorId: text("inspector_id").notNull().references(() => user.id),
+    signOffId: uuid("sign_off_id").notNull().references(() => signOff.id),
+    inspectedAt: timestamp("inspected_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    uniqueIndex("weld_inspection_round_idx").on(t.stepId, t.round),
+    uniqueIndex("weld_inspection_sign_off_idx").on(t.signOffId),
+    index("weld_inspection_job_idx").on(t.jobId, t.inspectedAt),
+    check("weld_inspection_photos", sql`cardinality(${t.photoIds}) >= 1`),
+    check("weld_inspection_accept", sql`${t.decision} = 'rejected' or ${t.judged} = 'accept'`),
+  ],
+);
+
+export const MATERIAL_KINDS = ["base", "filler", "other"] as const;
+export type MaterialKind = (typeof MATERIAL_KINDS)[number];
+
+// Material and consumable traceability per job (ISO 3834-2): what went into the axle, by heat (cast) or lot
+// number. Never changed: a correction is a new row pointing at the one it replaces (withdrawn: no longer used).
+export const jobMaterial = pgTable(
+  "job_material",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    shopId: uuid("shop_id").notNull().references(() => shop.id),
+    jobId: uuid("job_id").notNull().references(() => job.id),
+    kind: text("kind", { enum: MATERIAL_KINDS }).notNull(),
+    description: text("description").notNull(),
+    specification: text("specification").notNull().default(""),
+    heatNumber: text("heat_number").notNull(),
+    certificate: text("certificate").notNull().default(""),
+    correctsId: uuid("corrects_id").references((): AnyPgColumn => jobMaterial.id),
+    withdrawn: boolean("withdrawn").notNull().default(false),
+    reason: text("reason"),
+    recordedBy: text("recorded_by").notNull().references(() => user.id),
+    recordedAt: timestamp("recorded_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    index("job_material_job_idx").on(t.jobId, t.recordedAt),
+    uniqueIndex("job_material_corrects_idx").on(t.correctsId).where(sql`${t.correctsId} is not null`),
+    check("job_material_correction_reason", sql`${t.correctsId} is null or length(trim(${t.reason})) > 0`),
   ],
 );
 

@@ -64,14 +64,15 @@ drop trigger if exists job_step_frozen on job_step;
 create trigger job_step_frozen before update or delete on job_step
   for each row execute function gusset_job_step_frozen();
 
--- Weld passes are never deleted; before the step is signed a pass may only be struck out (removed_at).
+-- Weld passes are never deleted; before their round is signed a pass may only be struck out (removed_at).
 create or replace function gusset_weld_pass_guard() returns trigger language plpgsql as $$
 begin
   if tg_op = 'DELETE' then
     raise exception 'gusset: weld_pass rows are kept; strike a pass out instead' using errcode = 'GS409';
   end if;
-  if exists (select 1 from sign_off where step_id = old.step_id) then
-    raise exception 'gusset: weld_pass % belongs to a signed step; update refused', old.id using errcode = 'GS409';
+  -- A pass belongs to its joint's round; once that round is signed by its welder the pass stays as it is.
+  if exists (select 1 from sign_off where step_id = old.step_id and coalesce(round, 1) = old.round) then
+    raise exception 'gusset: weld_pass % belongs to a signed round of its joint; update refused', old.id using errcode = 'GS409';
   end if;
   if (to_jsonb(new) - 'removed_at' - 'removed_by') is distinct from (to_jsonb(old) - 'removed_at' - 'removed_by')
      or old.removed_at is not null then

@@ -25,6 +25,8 @@ const PERMISSIONS = {
   "job:release": ["lead"],
   "step:sign": ["lead", "welder"],
   "weld:log": ["welder"],
+  "weld:override": ["lead"],
+  "material:record": ["lead", "welder", "inspector"],
   "inspection:sign": ["inspector"],
   "nonconformance:raise": ["lead", "welder", "inspector"],
   "nonconformance:disposition": ["lead", "inspector"],

@@ -16,6 +16,12 @@ export type SignedPass = {
   interpassC: number | null;
   fillerLot: string;
   heatInputKJPerMm: number;
+  /** weld joints: the round, the WPS revision, how the pass stood against it and a lead's override */
+  round?: number;
+  position?: string;
+  wps?: { reference: string; revision: number | null };
+  outOfRange?: boolean;
+  override?: { leadId: string; reason: string } | null;
 };
 
 export type StepContentInput = {
@@ -34,6 +40,8 @@ export type StepContentInput = {
   acceptedUnder: readonly number[];
   /** for an amendment: the sign-off it corrects and why */
   amends?: { signOffId: string; reason: string } | undefined;
+  /** weld joints: the round signed (1, then one per repair) and the rejection a repair answers */
+  round?: { number: number; repairOf: string | null } | undefined;
 };
 
 /** Plain JSON, ordered where order means nothing (photos by hash, passes by number), so equal work hashes equal. */
@@ -49,7 +57,8 @@ export function stepContent(i: StepContentInput): Record<string, unknown> {
     acceptedUnder: [...i.acceptedUnder].sort((a, b) => a - b),
   };
   if (i.amends) content.amends = { signOffId: i.amends.signOffId, reason: i.amends.reason };
-  return content;
+  if (i.round) content.round = { number: i.round.number, repairOf: i.round.repairOf };
+  return stripUndefined(content);
 }
 
 // JSON drops undefined members anyway; doing it here keeps the stored content and the hashed text identical.
@@ -58,7 +67,7 @@ function stripUndefined(value: unknown): Record<string, unknown> {
 }
 
 /** Content of a disposition's or a release's sign-off. */
-export function recordContent(kind: "disposition" | "release", body: Record<string, unknown>): Record<string, unknown> {
+export function recordContent(kind: "disposition" | "release" | "inspection", body: Record<string, unknown>): Record<string, unknown> {
   return { schema: `gusset.${kind}-content/1`, ...stripUndefined(body) };
 }
 

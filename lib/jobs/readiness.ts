@@ -7,6 +7,7 @@ import { canonicalJson } from "@/lib/seal/canonical-json";
 import { requiredCaptures } from "./geometry";
 import { DISPOSITION_LABELS, type DispositionName } from "./labels";
 import { measureVerdict, torqueVerdict, type Verdict } from "./tolerance";
+import type { JointView } from "./record";
 import type { CautionValue, CheckValue, CoatingValue, GeometryValue, MeasureValue, TorqueValue } from "./values";
 
 export type StepNc = { number: number; disposition: DispositionName | null; observed: unknown };
@@ -14,9 +15,11 @@ export type StepFacts = {
   spec: Step;
   value: Record<string, unknown> | null;
   photoCount: number;
-  /** passes not struck out */
+  /** passes not struck out (weld steps: of the joint's current round) */
   passes: { preheatC: number }[];
   ncs: StepNc[];
+  /** weld steps: the joint's state and its out-of-range passes still to be covered */
+  joint?: Pick<JointView, "state" | "round" | "uncovered"> | undefined;
 };
 
 export type Readiness = {
@@ -127,9 +130,20 @@ export function stepReadiness(f: StepFacts): Readiness {
       break;
     }
     case "weld": {
-      if (f.passes.length === 0) {
+      const joint = f.joint;
+      if (joint?.state === "awaiting_inspection") {
+        blocking = true;
+        reasons.push(`${joint.round > 1 ? `Repair round ${joint.round}` : "The joint"} is signed and waits for the inspector.`);
+      } else if (joint?.state === "accepted") {
+        blocking = true;
+        reasons.push("The joint is inspected and accepted.");
+      } else if (f.passes.length === 0) {
         complete = false;
-        reasons.push("Record at least one weld pass.");
+        reasons.push(joint && joint.round > 1 ? `Record the repair passes of round ${joint.round}.` : "Record at least one weld pass.");
+      }
+      for (const u of joint?.uncovered ?? []) {
+        blocking = true;
+        reasons.push(`Pass ${u.passNumber} is outside its WPS (${u.messages.join(" ")}): raise a nonconformance, or a lead overrides it with a reason.`);
       }
       const cold = f.passes.filter((p) => p.preheatC < spec.minPreheatC - 1e-9);
       if (cold.length) {

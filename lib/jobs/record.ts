@@ -1,6 +1,7 @@
 // The shape of a job's whole record as GET /api/jobs/{id} answers it (and the job page renders it).
 // Dates are ISO strings so the same type serves the server, the JSON and the browser.
 import type { Step, StepKind } from "@/lib/procedures/schema";
+import type { VisualCriteria, VisualItemResult, VisualObservations, WpsFinding, WpsRanges } from "@/lib/welding";
 import type { DispositionName, JobStateName } from "./labels";
 import type { Readiness } from "./readiness";
 
@@ -20,6 +21,8 @@ export type SignOffView = {
   reason: string | null;
   /** the value that was signed (step sign-offs) */
   value: Record<string, unknown> | null;
+  /** weld joints: the round this sign-off belongs to */
+  round: number | null;
 };
 
 export type PhotoView = {
@@ -55,7 +58,90 @@ export type PassView = {
   heatInputKJPerMm: number;
   recordedAt: string;
   removed: boolean;
+  /** the joint's round: 1, then one per repair after a rejection */
+  round: number;
+  position: string;
+  fillerClassification: string;
+  wps: { revisionId: string | null; reference: string; number: number | null };
+  heatInputMethod: "voltage-current" | "energy" | "power";
+  beadLengthMm: number | null;
+  arcTimeS: number | null;
+  machineEnergyKJ: number | null;
+  machinePowerW: number | null;
+  jPerIn: number | null;
+  /** the pass against its WPS revision's ranges (lib/welding checkPassAgainstWps) */
+  findings: WpsFinding[];
+  outOfRange: boolean;
+  /** a lead's acceptance of an out-of-range pass */
+  override: { reason: string; by: PersonRef; at: string } | null;
 };
+
+export type InspectionView = {
+  id: string;
+  stepId: string;
+  round: number;
+  criteria: VisualCriteria;
+  observations: VisualObservations;
+  items: VisualItemResult[];
+  judged: "accept" | "reject";
+  decision: "accepted" | "rejected";
+  notes: string;
+  photoIds: string[];
+  inspector: PersonRef;
+  signOffId: string;
+  inspectedAt: string;
+};
+
+export type JointState = "welding" | "awaiting_inspection" | "repair" | "accepted";
+
+export type JointRound = {
+  round: number;
+  passes: PassView[];
+  /** the welder's sign-off that the round's passes are done */
+  performed: SignOffView | null;
+  inspection: InspectionView | null;
+};
+
+export type JointView = {
+  jointId: string;
+  state: JointState;
+  /** the round being welded or waiting for inspection; the last round once accepted */
+  round: number;
+  rounds: JointRound[];
+  /** everyone who recorded a pass of this joint, in any round, struck out or not */
+  welderIds: string[];
+  /** out-of-range passes of the current round with neither an override nor a dispositioned NC */
+  uncovered: { passNumber: number; messages: string[] }[];
+};
+
+export type MaterialView = {
+  id: string;
+  kind: "base" | "filler" | "other";
+  description: string;
+  specification: string;
+  heatNumber: string;
+  certificate: string;
+  correctsId: string | null;
+  withdrawn: boolean;
+  reason: string | null;
+  recordedBy: PersonRef;
+  recordedAt: string;
+  /** replaced by a later correction: shown struck through */
+  superseded: boolean;
+};
+
+/** A published WPS revision a weld step of the job names, with the ranges its passes are checked against. */
+export type WpsSummary = {
+  reference: string;
+  revisionId: string;
+  number: number;
+  title: string;
+  process: string | null;
+  positions: string[];
+  ranges: WpsRanges;
+};
+
+export type QualificationSummary = { process: string; ok: boolean; reason: string; lapsedOn: string | null; expiresOn: string | null };
 
 export type DispositionView = {
   disposition: DispositionName;
@@ -107,6 +193,10 @@ export type StepView = {
   /** why the person asking may not sign this step (role, separation of duties), or null */
   signBlock: string | null;
   meaning: "performed" | "inspected";
+  /** weld steps: the joint's rounds and where it stands */
+  joint: JointView | null;
+  /** weld steps: why the person asking may not inspect this joint now, or null when they may */
+  inspectBlock: string | null;
 };
 
 export type JobHeader = {
@@ -150,6 +240,12 @@ export type JobRecord = {
   photos: PhotoView[];
   passes: PassView[];
   nonconformances: NonconformanceView[];
+  inspections: InspectionView[];
+  materials: MaterialView[];
+  /** published WPS revisions named by the job's weld steps; a reference missing here is not in the library */
+  wps: WpsSummary[];
+  /** the viewer's continuity for each process the job's weld steps use (welders only) */
+  qualifications: QualificationSummary[];
   releaseSignOff: SignOffView | null;
   releaseBlockers: string[];
   viewer: { userId: string; name: string; roles: string[]; unitSystem: "metric" | "imperial" };

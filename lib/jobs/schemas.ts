@@ -2,6 +2,7 @@
 // turns empty fields into undefined, so optional text defaults to "".
 import { z } from "zod";
 import { pinSchema } from "@/lib/auth/pin-schema";
+import { visualCriteriaSchema, visualObservationsSchema } from "@/lib/welding/schema";
 import { DISPOSITION_VALUES, JOB_STATE_VALUES } from "./labels";
 
 const text = (max: number, label: string) => z.string().trim().max(max, `${label} is at most ${max} characters.`);
@@ -67,18 +68,55 @@ export const amendStepSchema = z
   })
   .strict();
 
+const positive = (label: string, max: number) => z.number({ message: `${label} must be a number.` }).gt(0, `${label} above 0.`).max(max, `${label} up to ${max.toLocaleString("en")}.`);
+
+// Travel speed is given, or worked out from bead length and arc time (ASME IX QW-409.1(a)); the machine's
+// arc energy or average power, when read, gives the (c) figure instead.
 export const weldPassSchema = z
   .object({
     clientKey: z.string().trim().min(8).max(64),
-    volts: z.number({ message: "Volts must be a number." }).gt(0, "Volts above 0.").max(100, "Volts up to 100."),
-    amps: z.number({ message: "Amps must be a number." }).gt(0, "Amps above 0.").max(1500, "Amps up to 1,500."),
-    travelSpeed: z.object({
-      value: z.number({ message: "Travel speed must be a number." }).gt(0, "Travel speed above 0.").max(20_000),
-      unit: z.enum(["mm/min", "in/min"]),
-    }),
+    volts: positive("Volts", 100),
+    amps: positive("Amps", 1500),
+    travelSpeed: z
+      .object({
+        value: positive("Travel speed", 20_000),
+        unit: z.enum(["mm/min", "in/min"], { message: "Travel speed is in mm/min or in/min." }),
+      })
+      .optional(),
+    beadLength: z.object({ value: positive("Bead length", 10_000), unit: z.enum(["mm", "in"], { message: "Bead length is in mm or in." }) }).optional(),
+    arcTimeS: positive("Arc time", 36_000).optional(),
+    machineEnergyKJ: positive("Arc energy read from the machine", 100_000).optional(),
+    machinePowerW: positive("Average power read from the machine", 200_000).optional(),
+    position: z.string().trim().regex(/^[1-6](F|G|GR)$/, "Position like 1F, 2F, 3F, 4F, 2G, 5G, 6G.").optional(),
     preheatC: z.number({ message: "Measured preheat must be a number." }).min(-60).max(700),
     interpassC: z.number({ message: "Interpass must be a number." }).min(-60).max(700).optional(),
     fillerLot: z.string().trim().min(1, "Enter the filler lot or heat number.").max(60),
+  })
+  .strict()
+  .superRefine((p, ctx) => {
+    const fromBead = p.beadLength !== undefined || p.arcTimeS !== undefined;
+    if (!p.travelSpeed && !(p.beadLength && p.arcTimeS !== undefined) && p.machineEnergyKJ === undefined) {
+      ctx.addIssue({ code: "custom", path: ["travelSpeed"], message: "Enter the travel speed, or the bead length and the arc time." });
+    }
+    if (p.travelSpeed && fromBead && p.machineEnergyKJ === undefined && p.machinePowerW === undefined) {
+      ctx.addIssue({ code: "custom", path: ["beadLength"], message: "Give the travel speed or the bead length and arc time, not both." });
+    }
+    if (p.machineEnergyKJ !== undefined && p.machinePowerW !== undefined) {
+      ctx.addIssue({ code: "custom", path: ["machinePowerW"], message: "Give the machine's arc energy or its average power, not both." });
+    }
+    if ((p.machineEnergyKJ !== undefined || p.machinePowerW !== undefined) && !p.beadLength) {
+      ctx.addIssue({ code: "custom", path: ["beadLength"], message: "A reading from the machine needs the bead length it was welded over." });
+    }
+    if (p.machinePowerW !== undefined && p.arcTimeS === undefined) {
+      ctx.addIssue({ code: "custom", path: ["arcTimeS"], message: "Average power needs the arc time." });
+    }
+  });
+export type WeldPassBody = z.output<typeof weldPassSchema>;
+
+export const overridePassSchema = z
+  .object({
+    reason: z.string().trim().min(5, "Say why the pass is accepted as it is (at least 5 characters).").max(1000),
+    pin: pinSchema,
   })
   .strict();
 
@@ -108,3 +146,36 @@ export const photoFieldsSchema = z.object({
   stepId: z.uuid().optional(),
   caption: z.string().trim().max(300).default(""),
 });
+
+export const MATERIAL_KIND_VALUES = ["base", "filler", "other"] as const;
+export const materialSchema = z
+  .object({
+    kind: z.enum(MATERIAL_KIND_VALUES, { message: "Choose base metal, filler or other." }),
+    description: required(200, "The description", "Say what it is (for example: bracket plate 10 mm).", 2),
+    specification: optionalText(120, "The specification"),
+    heatNumber: required(60, "The heat or lot number", "Enter the heat (cast) or lot number as marked."),
+    certificate: optionalText(120, "The certificate reference"),
+    correctsId: z.uuid().optional(),
+    withdrawn: z.boolean().default(false),
+    reason: optionalText(1000, "The reason"),
+  })
+  .strict()
+  .superRefine((m, ctx) => {
+    if (m.correctsId && m.reason.length < 5) ctx.addIssue({ code: "custom", path: ["reason"], message: "Say why the entry is corrected (at least 5 characters)." });
+    if (m.withdrawn && !m.correctsId) ctx.addIssue({ code: "custom", path: ["withdrawn"], message: "Only an existing entry can be withdrawn." });
+  });
+export type MaterialInput = z.output<typeof materialSchema>;
+
+// A visual inspection of a weld joint's round: observations judged by the chosen criteria (lib/welding
+// judgeVisual), the inspector's decision, at least one photo, signed with the PIN ("inspected").
+export const inspectionSchema = z
+  .object({
+    criteria: visualCriteriaSchema.default("aws-d1.1-static"),
+    observations: visualObservationsSchema,
+    decision: z.enum(["accepted", "rejected"], { message: "Accept or reject the joint." }),
+    notes: z.string().trim().max(4000, "Notes are at most 4,000 characters.").default(""),
+    photoIds: z.array(z.uuid()).min(1, "Take at least one photo of the joint as inspected.").max(12, "At most 12 photos."),
+    pin: pinSchema,
+  })
+  .strict();
+export type InspectionBody = z.output<typeof inspectionSchema>;

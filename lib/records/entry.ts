@@ -15,6 +15,8 @@ export type SignOffForChain = {
   contentHash: string;
   amendsSignOffId: string | null;
   reason: string | null;
+  /** weld joints' sign-offs carry their round; other entries leave it out, so their form never changed */
+  round?: number | null;
 };
 
 export function recordEntryFor(s: SignOffForChain): Record<string, unknown> {
@@ -30,5 +32,6 @@ export function recordEntryFor(s: SignOffForChain): Record<string, unknown> {
     contentHash: s.contentHash,
     amends: s.amendsSignOffId,
     reason: s.reason,
+    ...(s.round != null ? { round: s.round } : {}),
   };
 }

@@ -22,6 +22,8 @@ export interface WpsRanges {
   heatInputBasis?: "arc-energy" | "iso-q";
   preheatMinC?: number;
   interpassMaxC?: number;
+  /** Welding positions the WPS covers (1F, 2F, …); empty or absent: not checked. */
+  positions?: readonly string[];
 }
 
 export interface PassValues {
@@ -34,15 +36,19 @@ export interface PassValues {
   preheatC?: number;
   /** Omitted on a first pass, where there is no interpass temperature yet. */
   interpassC?: number;
+  /** Position welded in (1F, 2F, …). */
+  position?: string;
 }
 
-export type WpsField = "volts" | "amps" | "travelSpeed" | "heatInput" | "preheat" | "interpass";
+export type WpsField = "volts" | "amps" | "travelSpeed" | "heatInput" | "preheat" | "interpass" | "position";
 
 export interface WpsFinding {
   field: WpsField;
   /** null when the pass did not record the value. */
   value: number | null;
-  unit: "V" | "A" | "mm/min" | "kJ/mm" | "°C";
+  /** non-numeric values (position) as recorded */
+  shown?: string;
+  unit: "V" | "A" | "mm/min" | "kJ/mm" | "°C" | "";
   min?: number;
   max?: number;
   ok: boolean;
@@ -69,16 +75,17 @@ const LABEL: Record<WpsField, string> = {
   heatInput: "Heat input",
   preheat: "Preheat",
   interpass: "Interpass temperature",
+  position: "Position",
 };
 
-function fmt(v: number, unit: WpsFinding["unit"]): string {
+function fmt(v: number, unit: Exclude<WpsFinding["unit"], "">): string {
   const digits = unit === "kJ/mm" ? 3 : 1;
   return `${round(v, digits)} ${unit}`;
 }
 
 function rangeFinding(
   field: WpsField,
-  unit: WpsFinding["unit"],
+  unit: Exclude<WpsFinding["unit"], "">,
   value: number | undefined,
   min: number | undefined,
   max: number | undefined,
@@ -165,13 +172,23 @@ export function checkPassAgainstWps(wps: WpsRanges, pass: PassValues): WpsCheckR
     push(rangeFinding("interpass", "°C", pass.interpassC, undefined, wps.interpassMaxC));
   }
 
+  if (wps.positions && wps.positions.length > 0 && pass.position !== undefined) {
+    const ok = wps.positions.includes(pass.position);
+    findings.push({
+      field: "position", value: null, shown: pass.position, unit: "", ok,
+      message: ok
+        ? `Position ${pass.position} is covered by the WPS.`
+        : `Position ${pass.position} is not among the WPS positions (${wps.positions.join(", ")}).`,
+    });
+  }
+
   const failedOther = findings.filter((f) => !f.ok && f.field !== "preheat");
   return {
     findings,
     blocked: blockedReason !== null,
     blockedReason,
-    outOfRange: failedOther.some((f) => f.value !== null),
-    incomplete: failedOther.some((f) => f.value === null),
+    outOfRange: failedOther.some((f) => f.value !== null || f.shown !== undefined),
+    incomplete: failedOther.some((f) => f.value === null && f.shown === undefined),
     ok: findings.every((f) => f.ok),
   };
 }

@@ -16,6 +16,8 @@ const EXPECTED: Record<Action, string[]> = {
   "job:release": ["lead"],
   "step:sign": ["lead", "welder"],
   "weld:log": ["welder"],
+  "weld:override": ["lead"],
+  "material:record": ["lead", "welder", "inspector"],
   "inspection:sign": ["inspector"],
   "nonconformance:raise": ["lead", "welder", "inspector"],
   "nonconformance:disposition": ["lead", "inspector"],

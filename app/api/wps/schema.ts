@@ -321,5 +321,6 @@ export function toWpsRanges(c: WpsContent): WpsRanges {
   if (c.heatInputBasis !== null) r.heatInputBasis = c.heatInputBasis;
   if (c.preheatMinC !== null) r.preheatMinC = c.preheatMinC;
   if (c.interpassMaxC !== null) r.interpassMaxC = c.interpassMaxC;
+  if (c.positions.length) r.positions = [...c.positions];
   return r;
 }
