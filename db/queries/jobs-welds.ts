@@ -9,7 +9,7 @@ import type { ShopContext } from "@/lib/auth/context";
 import { db } from "@/lib/db";
 import { env } from "@/lib/env";
 import { AppError } from "@/lib/errors";
-import { recordContent } from "@/lib/jobs/content";
+import { inspectionContent } from "@/lib/jobs/content";
 import { inspectionSeparation } from "@/lib/jobs/joint";
 import type { JobRecord, StepView } from "@/lib/jobs/record";
 import type { InspectionBody, MaterialInput } from "@/lib/jobs/schemas";
@@ -79,7 +79,7 @@ export async function inspectJoint(ctx: ShopContext, jobId: string, stepId: stri
         const { step, verdict, photos } = checkInspectable(record, ctx, stepId, body);
         const { joint } = step;
         const round = joint.rounds[joint.round - 1]!;
-        const content = recordContent("inspection", {
+        const content = inspectionContent({
           job: { id: record.job.id, number: record.job.number },
           step: { id: step.id, key: step.key, jointId: joint.jointId, specHash: contentHash(step.spec) },
           round: joint.round,
@@ -87,11 +87,11 @@ export async function inspectJoint(ctx: ShopContext, jobId: string, stepId: stri
           passes: round.passes.filter((p) => !p.removed).map((p) => ({ passNumber: p.passNumber, welderId: p.welder.id, heatInputKJPerMm: p.heatInputKJPerMm })),
           criteria: body.criteria,
           observations: body.observations,
-          items: verdict.items.map((i) => ({ item: i.item, ok: i.ok, limit: i.limit, measured: i.measured })),
+          items: verdict.items,
           judged: verdict.verdict,
           decision: body.decision,
           notes: body.notes,
-          photos: [...photos].sort((a, b) => (a.sha256 < b.sha256 ? -1 : 1)),
+          photos,
         });
         const hash = contentHash(content);
         const so = await appendSignOff(tx, {

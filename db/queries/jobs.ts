@@ -9,6 +9,7 @@ import type { ShopContext } from "@/lib/auth/context";
 import { db } from "@/lib/db";
 import { AppError } from "@/lib/errors";
 import { releaseContent } from "@/lib/jobs/content";
+import { materialsInUse } from "@/lib/jobs/materials";
 import { contentHash } from "@/lib/jobs/hash";
 import { formatJobNumber } from "@/lib/jobs/number";
 import type { JobListRow, JobRecord } from "@/lib/jobs/record";
@@ -311,6 +312,7 @@ export async function releaseJob(ctx: ShopContext, jobId: string, pin: string): 
           procedure: { versionId: record.job.procedureVersionId, number: record.job.procedureVersionNumber },
           steps: record.steps.map((s) => ({ key: s.key, signOff: s.signOffs.at(-1)?.contentHash ?? null })),
           nonconformances: record.nonconformances.map((n) => ({ number: n.number, disposition: n.disposition?.disposition ?? null })),
+          materials: materialsInUse(record.materials),
         });
         const so = await appendSignOff(tx, {
           shopId: ctx.shopId,

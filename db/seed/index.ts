@@ -8,12 +8,14 @@ import * as schema from "@/db/schema";
 import { hashPin } from "@/lib/auth/pin";
 import { DEMO_PASSWORD, DEMO_PIN, DEMO_SHOPS } from "./demo";
 import { seedJobs } from "./jobs";
+import { seedPhotoStore, seedStorageFromEnv, type SeedStorage } from "./photos";
 import { seedProcedures } from "./procedures";
 import { seedWelding } from "./welding";
 
 const { shop, membership, user, account } = schema;
 
-export async function seed(databaseUrl: string): Promise<{ created: string[] }> {
+export async function seed(databaseUrl: string, storage: SeedStorage | null = seedStorageFromEnv(process.env)): Promise<{ created: string[] }> {
+  const photos = storage ? seedPhotoStore(storage) : null;
   const pool = new pg.Pool({ connectionString: databaseUrl, max: 2 });
   const db = drizzle(pool, { schema });
   const created: string[] = [];
@@ -47,8 +49,9 @@ export async function seed(databaseUrl: string): Promise<{ created: string[] }> 
           if ((p.roles as readonly string[]).includes("lead")) leadId ??= u.id;
         }
         if (s.slug === "iron-gully" && leadId) created.push(...(await seedProcedures(tx, shopRow!.id, leadId)));
-        if (s.slug === "iron-gully") created.push(...(await seedJobs(tx, shopRow!.id, s.people)));
+        // The WPS library and qualifications first: the seeded jobs' passes are checked against them.
         created.push(...(await seedWelding(tx, shopRow!.id, s.people)));
+        if (s.slug === "iron-gully") created.push(...(await seedJobs(tx, shopRow!.id, s.people, photos)));
       });
     }
   } finally {

@@ -3,13 +3,15 @@
 // and a planned start-to-finish job. Customers, vehicles, VINs (valid check digits) and tags are invented.
 // Idempotent: a job whose axle tag the shop already has is left alone. Signed steps are built with the same
 // content and hash functions the API uses, so their hashes verify like any other.
-import { and, desc, eq, inArray, sql } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, sql } from "drizzle-orm";
 import type { NodePgDatabase } from "drizzle-orm/node-postgres";
 import * as schema from "@/db/schema";
 import { geometryResults } from "@/lib/jobs/geometry";
-import { releaseContent } from "@/lib/jobs/content";
+import { inspectionContent, releaseContent, type SignedPass } from "@/lib/jobs/content";
 import { stepContentHash } from "@/lib/jobs/hash";
 import { formatJobNumber } from "@/lib/jobs/number";
+import { materialsInUse } from "@/lib/jobs/materials";
+import { photosNeeded } from "@/lib/jobs/readiness";
 import { meaningOf } from "@/lib/jobs/roles";
 import { deriveJobState } from "@/lib/jobs/state";
 import { vinForJob } from "@/lib/jobs/vin";
@@ -17,12 +19,14 @@ import { versionContentSchema, type Step } from "@/lib/procedures/schema";
 import { recordEntryFor } from "@/lib/records/entry";
 import { chainHash, contentHash, GENESIS_HASH } from "@/lib/seal";
 import { vinCheckDigit } from "@/lib/vin";
-import { heatInput } from "@/lib/welding";
+import { checkPassAgainstWps, heatInput, judgeVisual, type VisualObservations, type WpsRanges } from "@/lib/welding";
+import { toWpsRanges } from "@/app/api/wps/schema";
+import type { SeedPhotoStore } from "./photos";
 
 type SeedDb = NodePgDatabase<typeof schema> | Parameters<Parameters<NodePgDatabase<typeof schema>["transaction"]>[0]>[0];
 type Person = { email: string; name: string; roles: readonly string[] };
 
-const { job, jobActivity, jobAssignment, jobCounter, jobStep, nonconformance, procedure, procedureVersion, recordEntry, signOff, user, weldPass } = schema;
+const { job, jobActivity, jobAssignment, jobCounter, jobMaterial, jobStep, nonconformance, photo, procedure, procedureVersion, recordEntry, signOff, user, weldInspection, weldPass, welderProcessUse, wps, wpsRevision } = schema;
 const DAY = 86_400_000;
 
 /** An invented VIN with its 49 CFR 565.15 check digit put in position 9. */
@@ -80,7 +84,15 @@ type Plan = {
   /** released by the lead once every step is signed */
   release?: boolean;
   nc?: { stepKey: string; value: Record<string, unknown>; description: string; proposed: "rework" | "repair" | "use_as_is" | "scrap" };
+  /** a weld joint rejected at its first inspection (undercut), repaired in round 2 and accepted */
+  repair?: { stepKey: string; undercutDepthMm: number; notes: string };
+  materials?: { kind: "base" | "filler" | "other"; description: string; specification: string; heatNumber: string; certificate: string }[];
 };
+
+const BRACKET_MATERIALS: NonNullable<Plan["materials"]> = [
+  { kind: "base", description: "Lateral-link bracket plate, 10 mm", specification: "Hot-rolled carbon steel plate, 250 MPa grade", heatNumber: "HT 7731-0412", certificate: "MC-24-0871" },
+  { kind: "filler", description: "Solid wire 0.9 mm, 15 kg spool", specification: "ER70S-6", heatNumber: "LOT 24-118", certificate: "CoC 24-118" },
+];
 
 const PLANS: Plan[] = [
   {
@@ -91,9 +103,24 @@ const PLANS: Plan[] = [
     axle: "Front solid axle housing, lateral link bracket",
     dueInDays: -4,
     createdDaysAgo: 9,
-    notes: "Released: every joint accepted at its hold point.",
+    notes: "Released: every joint accepted at its first inspection.",
     sign: { all: true },
     release: true,
+    materials: BRACKET_MATERIALS,
+  },
+  {
+    tag: "AX-0533",
+    procedureTitle: "Fitting and welding a weld-in lateral-link bracket at ride height",
+    customer: { name: "Quandong Well Contracting", phone: "+61 8 5550 0533", email: "plant@quandongwell.example" },
+    vehicle: { year: 2014, makeModel: "mid-size pickup, extra cab", vin: vin("ZZGMP33E?EK900533") },
+    axle: "Front solid axle housing, lateral link bracket",
+    dueInDays: -2,
+    createdDaysAgo: 7,
+    notes: "Released after a repair: joint W2 was rejected for undercut, ground out, rewelded and accepted.",
+    sign: { all: true },
+    release: true,
+    repair: { stepKey: "fit-weld-w2", undercutDepthMm: 1.2, notes: "Undercut along the upper toe of W2, about 60 mm long. Grind out and reweld the toe." },
+    materials: BRACKET_MATERIALS.map((m) => (m.kind === "base" ? { ...m, heatNumber: "HT 7731-0530" } : m)),
   },
   {
     tag: "AX-1103",
@@ -156,34 +183,107 @@ const PLANS: Plan[] = [
   },
 ];
 
-async function seedPass(db: SeedDb, p: { shopId: string; jobId: string; stepId: string; welderId: string; process: string; preheatC: number; at: Date }) {
-  const volts = 21.5, amps = 165, travel = 280;
-  const hi = heatInput({ process: p.process as never, volts, amps, travelSpeed: { value: travel, unit: "mm/min" } });
-  const pass = { passNumber: 1, welderId: p.welderId, process: p.process, volts, amps, travelSpeedMmPerMin: travel, preheatC: p.preheatC, interpassC: null, fillerLot: "ER70S-6 LOT 24-118", heatInputKJPerMm: hi.heatInputKJPerMm };
+type SeedWps = { revisionId: string; reference: string; number: number; ranges: WpsRanges; positions: string[] };
+
+// One pass inside the shop's short-circuit GMAW window (the seeded WPS: 17–21 V, 110–165 A, 250–450 mm/min).
+async function seedPass(
+  db: SeedDb,
+  p: { shopId: string; jobId: string; stepId: string; welderId: string; step: Extract<Step, { kind: "weld" }>; wps: SeedWps; passNumber: number; round: number; at: Date; volts?: number; amps?: number; travel?: number },
+): Promise<SignedPass> {
+  const volts = p.volts ?? 19.5, amps = p.amps ?? 150, travel = p.travel ?? 300;
+  const preheatC = Math.max(p.step.minPreheatC, p.wps.ranges.preheatMinC ?? 0, 18);
+  const interpassC = p.passNumber > 1 ? 140 : null;
+  const hi = heatInput({ process: p.step.process, volts, amps, travelSpeed: { value: travel, unit: "mm/min" } });
+  const check = checkPassAgainstWps({ ...p.wps.ranges, positions: p.wps.positions }, { process: p.step.process, volts, amps, travelSpeedMmPerMin: travel, preheatC, ...(interpassC !== null ? { interpassC } : {}), position: p.step.position });
+  const fillerLot = "ER70S-6 LOT 24-118";
   await db.insert(weldPass).values({
     shopId: p.shopId,
     jobId: p.jobId,
     stepId: p.stepId,
-    passNumber: 1,
+    passNumber: p.passNumber,
+    round: p.round,
     welderId: p.welderId,
-    process: p.process,
+    process: p.step.process,
+    position: p.step.position,
+    fillerClassification: p.step.filler,
+    wpsRevisionId: p.wps.revisionId,
+    wpsReference: p.wps.reference,
+    wpsRevisionNumber: p.wps.number,
     volts,
     amps,
     travelSpeedMmPerMin: travel,
     travelSpeedUnit: "mm/min",
-    preheatC: p.preheatC,
-    interpassC: null,
-    fillerLot: pass.fillerLot,
+    preheatC,
+    interpassC,
+    fillerLot,
     arcEnergyKJPerMm: hi.arcEnergyKJPerMm,
     heatInputKJPerMm: hi.heatInputKJPerMm,
-    clientKey: `seed-${p.stepId}-1`,
+    jPerIn: hi.jPerIn,
+    wpsFindings: check.findings,
+    outOfRange: check.outOfRange || check.incomplete,
+    clientKey: `seed-${p.stepId}-${p.passNumber}`,
     recordedAt: p.at,
   });
-  return pass;
+  // Continuity: the pass is a use of the process (never moves the last use back).
+  await db
+    .insert(welderProcessUse)
+    .values({ shopId: p.shopId, welderUserId: p.welderId, process: p.step.process, lastUsedOn: p.at.toISOString().slice(0, 10) })
+    .onConflictDoUpdate({ target: [welderProcessUse.shopId, welderProcessUse.welderUserId, welderProcessUse.process], set: { lastUsedOn: sql`greatest(${welderProcessUse.lastUsedOn}, excluded.last_used_on)` } });
+  return {
+    passNumber: p.passNumber,
+    welderId: p.welderId,
+    process: p.step.process,
+    volts,
+    amps,
+    travelSpeedMmPerMin: travel,
+    preheatC,
+    interpassC,
+    fillerLot,
+    heatInputKJPerMm: hi.heatInputKJPerMm,
+    round: p.round,
+    position: p.step.position,
+    wps: { reference: p.wps.reference, revision: p.wps.number },
+    outOfRange: check.outOfRange || check.incomplete,
+    override: null,
+  };
 }
 
-export async function seedJobs(db: SeedDb, shopId: string, people: readonly Person[]): Promise<string[]> {
+async function publishedWps(db: SeedDb, shopId: string, reference: string): Promise<SeedWps | null> {
+  const [r] = await db
+    .select({ revision: wpsRevision, reference: wps.reference })
+    .from(wpsRevision)
+    .innerJoin(wps, eq(wps.id, wpsRevision.wpsId))
+    .where(and(eq(wpsRevision.shopId, shopId), eq(wpsRevision.status, "published"), eq(wps.reference, reference.trim().toUpperCase())));
+  if (!r) return null;
+  return { revisionId: r.revision.id, reference: r.reference, number: r.revision.number, ranges: toWpsRanges(r.revision as never), positions: [...r.revision.positions] };
+}
+
+// What an inspector sees on a sound bracket fillet, and on one with undercut past the AWS D1.1 Table 8.1 limit.
+function observationsFor(step: Extract<Step, { kind: "weld" }>, undercutDepthMm: number): VisualObservations {
+  return {
+    cracks: false,
+    fusionComplete: true,
+    cratersFilled: true,
+    profileAcceptable: true,
+    specifiedLegMm: step.sizeMm,
+    measuredLegMm: step.sizeMm + 0.5,
+    weldLengthMm: step.lengthMm,
+    materialThicknessMm: 10,
+    undercutDepthMm,
+    undercutAccumulatedMm: undercutDepthMm > 0.8 ? 60 : 0,
+    porosityMm: 0,
+    porosity12Mm: 0,
+    arcStrikes: false,
+    spatterAcceptable: true,
+  };
+}
+
+export async function seedJobs(db: SeedDb, shopId: string, people: readonly Person[], photos: SeedPhotoStore | null): Promise<string[]> {
   const created: string[] = [];
+  if (!photos) {
+    console.warn("[seed] no object store configured (S3_ENDPOINT): demo jobs, which carry photos, are not seeded");
+    return created;
+  }
   const users = await db
     .select({ id: user.id, email: user.email, name: user.name })
     .from(user)
@@ -286,6 +386,55 @@ export async function seedJobs(db: SeedDb, shopId: string, people: readonly Pers
     // The record chain, as db/queries/records.ts appendToChain builds it for sign-offs made in the app.
     let prevHash = GENESIS_HASH;
     let seq = 0;
+    // Appends one sign-off and its chain entry, as appendSignOff / appendToChain do in the app.
+    const append = async (a: { stepId: string | null; signer: { id: string; name: string }; role: string; meaning: "performed" | "inspected" | "released"; signedAt: Date; content: Record<string, unknown>; hash: string; round?: number | null }) => {
+      const [so] = await db
+        .insert(signOff)
+        .values({ shopId, jobId, stepId: a.stepId, userId: a.signer.id, printedName: a.signer.name, role: a.role, meaning: a.meaning, signedAt: a.signedAt, content: a.content, contentHash: a.hash, round: a.round ?? null })
+        .returning({ id: signOff.id, signedAt: signOff.signedAt });
+      const entry = recordEntryFor({ id: so!.id, jobId, stepId: a.stepId, nonconformanceId: null, userId: a.signer.id, printedName: a.signer.name, role: a.role, meaning: a.meaning, signedAt: so!.signedAt, contentHash: a.hash, amendsSignOffId: null, reason: null, round: a.round ?? null });
+      const chained = chainHash(prevHash, entry);
+      seq += 1;
+      await db.insert(recordEntry).values({ shopId, jobId, seq, signOffId: so!.id, prevHash, hash: chained });
+      prevHash = chained;
+      return so!;
+    };
+    const addPhoto = async (a: { stepId: string | null; title: string; lines: string[]; caption: string; by: string; at: Date }) => {
+      const idempotencyKey = `seed-${jobId}-${photoCount++}`;
+      const stored = await photos!.put({ shopId, jobId, idempotencyKey, title: a.title, lines: a.lines });
+      const [row] = await db
+        .insert(photo)
+        .values({ shopId, jobId, stepId: a.stepId, ...stored, idempotencyKey, caption: a.caption, uploadedBy: a.by, uploadedAt: a.at })
+        .returning({ id: photo.id, sha256: photo.sha256 });
+      return row!;
+    };
+    let photoCount = 0;
+    const inspect = async (a: { step: Extract<Step, { kind: "weld" }>; stepId: string; key: string; round: number; performedId: string; passes: SignedPass[]; undercutDepthMm: number; notes: string; at: Date }) => {
+      const observations = observationsFor(a.step, a.undercutDepthMm);
+      const verdict = judgeVisual("aws-d1.1-static", observations);
+      const decision = verdict.accepted ? ("accepted" as const) : ("rejected" as const);
+      const shot = await addPhoto({ stepId: null, title: `${a.step.jointId} · round ${a.round}`, lines: [number, plan.tag, `Visual inspection: ${decision}`], caption: `${a.step.jointId} round ${a.round} inspection`, by: inspectorUser.id, at: new Date(a.at.getTime() - 120_000) });
+      const content = inspectionContent({
+        job: { id: jobId, number },
+        step: { id: a.stepId, key: a.key, jointId: a.step.jointId, specHash: contentHash(a.step) },
+        round: a.round,
+        performed: a.performedId,
+        passes: a.passes.map((p) => ({ passNumber: p.passNumber, welderId: p.welderId, heatInputKJPerMm: p.heatInputKJPerMm })),
+        criteria: "aws-d1.1-static",
+        observations: observations as unknown as Record<string, unknown>,
+        items: verdict.items,
+        judged: verdict.verdict,
+        decision,
+        notes: a.notes,
+        photos: [shot],
+      });
+      const hash = contentHash(content);
+      const so = await append({ stepId: a.stepId, signer: inspectorUser, role: "inspector", meaning: "inspected", signedAt: a.at, content, hash, round: a.round });
+      await db.insert(weldInspection).values({ shopId, jobId, stepId: a.stepId, round: a.round, criteria: "aws-d1.1-static", observations, items: verdict.items, judged: verdict.verdict, decision, notes: a.notes, photoIds: [shot.id], inspectorId: inspectorUser.id, signOffId: so.id, inspectedAt: so.signedAt });
+      await db.insert(jobActivity).values({ shopId, jobId, actorId: inspectorUser.id, action: decision === "accepted" ? "weld.accepted" : "weld.rejected", stepId: a.stepId, detail: { joint: a.step.jointId, round: a.round, criteria: "aws-d1.1-static", signOffId: so.id, rejected: verdict.rejectedItems, notes: a.notes }, at: a.at });
+      return { decision, signOffId: so.id };
+    };
+
     for (const key of toSign) {
       const { step } = steps.find((s) => s.step.key === key)!;
       const stepId = stepRows.find((r) => r.key === key)!.id;
@@ -294,24 +443,45 @@ export async function seedJobs(db: SeedDb, shopId: string, people: readonly Pers
       const role = meaning === "inspected" ? "inspector" : step.signedBy === "lead" ? "lead" : "welder";
       const value = passingValue(step);
       const signedAt = new Date(Math.min(at, now - 60_000));
-      // A weld joint is signed over its passes: one pass inside the usual short-circuit GMAW window.
-      const passes = step.kind === "weld" ? [await seedPass(db, { shopId, jobId, stepId, welderId: welderUser.id, process: step.process, preheatC: Math.max(step.minPreheatC, 18), at: new Date(signedAt.getTime() - 600_000) })] : [];
-      const { content, hash } = stepContentHash({ jobId, jobNumber: number, stepId, stepKey: key, kind: step.kind, specHash: contentHash(step), meaning, value, photos: [], passes, acceptedUnder: [] });
+      // Steps that ask for photos get them, taken just before signing.
+      const stepPhotos = [];
+      for (let i = 0; i < photosNeeded(step); i++) {
+        stepPhotos.push(await addPhoto({ stepId, title: step.title, lines: [number, plan.tag, `Photo ${i + 1} of ${photosNeeded(step)}`], caption: step.title, by: signer.id, at: new Date(signedAt.getTime() - 300_000 + i * 1000) }));
+      }
       await db.update(jobStep).set({ value, version: 2, updatedBy: signer.id, updatedAt: signedAt, signedAt }).where(and(eq(jobStep.id, stepId), eq(jobStep.jobId, jobId)));
-      const [so] = await db
-        .insert(signOff)
-        .values({ shopId, jobId, stepId, userId: signer.id, printedName: signer.name, role, meaning, signedAt, content, contentHash: hash })
-        .returning({ id: signOff.id, signedAt: signOff.signedAt });
-      const entry = recordEntryFor({ id: so!.id, jobId, stepId, nonconformanceId: null, userId: signer.id, printedName: signer.name, role, meaning, signedAt: so!.signedAt, contentHash: hash, amendsSignOffId: null, reason: null });
-      const chained = chainHash(prevHash, entry);
-      seq += 1;
-      await db.insert(recordEntry).values({ shopId, jobId, seq, signOffId: so!.id, prevHash, hash: chained });
-      prevHash = chained;
-      await db.insert(jobActivity).values([
-        { shopId, jobId, actorId: signer.id, action: "step.value_saved", stepId, detail: { version: 1, value }, at: signedAt },
-        { shopId, jobId, actorId: signer.id, action: "step.signed", stepId, detail: { signOffId: so!.id, meaning, role, contentHash: hash, acceptedUnder: [] }, at: signedAt },
-      ]);
+      await db.insert(jobActivity).values({ shopId, jobId, actorId: signer.id, action: "step.value_saved", stepId, detail: { version: 1, value }, at: signedAt });
+      if (step.kind === "weld") {
+        const stepWps = await publishedWps(db, shopId, step.wpsRef);
+        if (!stepWps) throw new Error(`seed: joint ${step.jointId} names ${step.wpsRef}, which the shop has not published`);
+        const repair = plan.repair?.stepKey === key ? plan.repair : null;
+        let round = 1;
+        let passNumber = 1;
+        let repairOf: string | null = null;
+        let when = signedAt.getTime();
+        for (;;) {
+          const pass = await seedPass(db, { shopId, jobId, stepId, welderId: welderUser.id, step, wps: stepWps, passNumber, round, at: new Date(when - 600_000) });
+          const { content, hash } = stepContentHash({ jobId, jobNumber: number, stepId, stepKey: key, kind: step.kind, specHash: contentHash(step), meaning, value, photos: round === 1 ? stepPhotos : [], passes: [pass], acceptedUnder: [], round: { number: round, repairOf } });
+          const performed = await append({ stepId, signer: welderUser, role: "welder", meaning: "performed", signedAt: new Date(when), content, hash, round });
+          await db.insert(jobActivity).values({ shopId, jobId, actorId: welderUser.id, action: "step.signed", stepId, detail: { signOffId: performed.id, meaning, role: "welder", contentHash: hash, acceptedUnder: [], round }, at: new Date(when) });
+          const rejectNow = repair !== null && round === 1;
+          const result = await inspect({ step, stepId, key, round, performedId: performed.id, passes: [pass], undercutDepthMm: rejectNow ? repair.undercutDepthMm : 0.3, notes: rejectNow ? repair.notes : "", at: new Date(when + 1_200_000) });
+          if (result.decision === "accepted") break;
+          repairOf = result.signOffId;
+          round += 1;
+          passNumber += 1;
+          when += 3_600_000;
+          at += 3_600_000;
+        }
+        at += 3_600_000;
+        continue;
+      }
+      const { content, hash } = stepContentHash({ jobId, jobNumber: number, stepId, stepKey: key, kind: step.kind, specHash: contentHash(step), meaning, value, photos: stepPhotos, passes: [], acceptedUnder: [] });
+      const so = await append({ stepId, signer, role, meaning, signedAt, content, hash });
+      await db.insert(jobActivity).values({ shopId, jobId, actorId: signer.id, action: "step.signed", stepId, detail: { signOffId: so.id, meaning, role, contentHash: hash, acceptedUnder: [] }, at: signedAt });
       at += 3_600_000;
+    }
+    for (const m of plan.materials ?? []) {
+      await db.insert(jobMaterial).values({ shopId, jobId, kind: m.kind, description: m.description, specification: m.specification, heatNumber: m.heatNumber, certificate: m.certificate, recordedBy: welderUser.id, recordedAt: new Date(createdAt.getTime() + 1_800_000) });
     }
     if (plan.nc) {
       const stepId = stepRows.find((r) => r.key === plan.nc!.stepKey)!.id;
@@ -321,25 +491,20 @@ export async function seedJobs(db: SeedDb, shopId: string, people: readonly Pers
       await db.insert(jobActivity).values({ shopId, jobId, actorId: welderUser.id, action: "nc.raised", stepId, detail: { number: 1, proposed: plan.nc.proposed, description: plan.nc.description, photos: 0 }, at: raisedAt });
     }
     if (plan.release) {
-      const signedRows = await db.select({ stepId: signOff.stepId, contentHash: signOff.contentHash }).from(signOff).where(eq(signOff.jobId, jobId));
+      // As the app builds it: each step's latest sign-off (a weld's last inspection), and the materials in use.
+      const signedRows = await db.select({ stepId: signOff.stepId, contentHash: signOff.contentHash }).from(signOff).where(eq(signOff.jobId, jobId)).orderBy(asc(signOff.signedAt), asc(signOff.id));
+      const materials = await db.select().from(jobMaterial).where(eq(jobMaterial.jobId, jobId)).orderBy(asc(jobMaterial.recordedAt), asc(jobMaterial.id));
       const content = releaseContent({
         job: { id: jobId, number },
         procedure: { versionId: version.id, number: version.number },
-        steps: steps.map(({ step }) => ({ key: step.key, signOff: signedRows.find((r) => r.stepId === stepRows.find((x) => x.key === step.key)!.id)?.contentHash ?? null })),
+        steps: steps.map(({ step }) => ({ key: step.key, signOff: signedRows.filter((r) => r.stepId === stepRows.find((x) => x.key === step.key)!.id).at(-1)?.contentHash ?? null })),
         nonconformances: [],
+        materials: materialsInUse(materials),
       });
       const hash = contentHash(content);
       const releasedAt = new Date(Math.min(at, now - 30_000));
-      const [so] = await db
-        .insert(signOff)
-        .values({ shopId, jobId, userId: lead.id, printedName: lead.name, role: "lead", meaning: "released", signedAt: releasedAt, content, contentHash: hash })
-        .returning({ id: signOff.id, signedAt: signOff.signedAt });
-      const entry = recordEntryFor({ id: so!.id, jobId, stepId: null, nonconformanceId: null, userId: lead.id, printedName: lead.name, role: "lead", meaning: "released", signedAt: so!.signedAt, contentHash: hash, amendsSignOffId: null, reason: null });
-      const chained = chainHash(prevHash, entry);
-      seq += 1;
-      await db.insert(recordEntry).values({ shopId, jobId, seq, signOffId: so!.id, prevHash, hash: chained });
-      prevHash = chained;
-      await db.insert(jobActivity).values({ shopId, jobId, actorId: lead.id, action: "job.released", detail: { signOffId: so!.id, from: "ready_for_release" }, at: releasedAt });
+      const so = await append({ stepId: null, signer: lead, role: "lead", meaning: "released", signedAt: releasedAt, content, hash });
+      await db.insert(jobActivity).values({ shopId, jobId, actorId: lead.id, action: "job.released", detail: { signOffId: so.id, from: "ready_for_release" }, at: releasedAt });
     }
     const signedKeys = new Set(toSign);
     const status = deriveJobState({

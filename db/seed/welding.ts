@@ -134,15 +134,15 @@ const smaw: WpsContent = {
 
 const LIBRARY: Record<string, SeedWps[]> = {
   "iron-gully": [
-    { reference: "GX-WPS-01", revisions: [{ content: gmaw, changeNote: "First issue.", publishedDaysAgo: 420 }] },
+    { reference: "GUS-GMAW-02", revisions: [{ content: gmaw, changeNote: "First issue.", publishedDaysAgo: 420 }] },
     {
-      reference: "GX-WPS-02",
+      reference: "GUS-GTAW-01",
       revisions: [
         { content: gtawV1, changeNote: "First issue.", publishedDaysAgo: 500, retireNote: "Superseded by revision 2." },
         { content: gtawV2, changeNote: "Minimum preheat raised to 20 °C for winter; maximum current cut to 125 A after burn-through on 1.6 mm wall.", publishedDaysAgo: 150 },
       ],
     },
-    { reference: "GX-WPS-03", revisions: [{ content: fcaw, changeNote: "First issue.", publishedDaysAgo: 300 }] },
+    { reference: "GUS-FCAW-01", revisions: [{ content: fcaw, changeNote: "First issue.", publishedDaysAgo: 300 }] },
   ],
   saltpan: [{ reference: "SP-WPS-01", revisions: [{ content: smaw, changeNote: "First issue.", publishedDaysAgo: 200 }] }],
 };
@@ -173,7 +173,7 @@ const QUALIFICATIONS: Record<string, SeedQualification[]> = {
       thicknessMaxMm: 20,
       diameterMinMm: 73,
       fillerFNumber: 6,
-      wpsReference: "GX-WPS-01",
+      wpsReference: "GUS-GMAW-02",
       lastUse: (today) => addDays(today, -20),
       testDaysBeforeUse: 380,
       notes: "10 mm plate coupon, 3G uphill, bend tested.",
@@ -187,7 +187,7 @@ const QUALIFICATIONS: Record<string, SeedQualification[]> = {
       thicknessMaxMm: null,
       diameterMinMm: null,
       fillerFNumber: 6,
-      wpsReference: "GX-WPS-03",
+      wpsReference: "GUS-FCAW-01",
       lastUse: (today) => addDays(addMonthsClamped(today, -7), -10),
       testDaysBeforeUse: 300,
       notes: "25 mm plate coupon, 2G, bend tested.",
@@ -201,7 +201,7 @@ const QUALIFICATIONS: Record<string, SeedQualification[]> = {
       thicknessMaxMm: 8,
       diameterMinMm: 25,
       fillerFNumber: 6,
-      wpsReference: "GX-WPS-02",
+      wpsReference: "GUS-GTAW-01",
       lastUse: (today) => addDays(addMonthsClamped(today, -6), 12),
       testDaysBeforeUse: 100,
       notes: "Chromoly tube-to-plate fillet coupon, macro-etched.",

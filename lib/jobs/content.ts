@@ -77,6 +77,32 @@ export function releaseContent(r: {
   procedure: { versionId: string; number: number };
   steps: { key: string; signOff: string | null }[];
   nonconformances: { number: number; disposition: string | null }[];
+  /** the materials in use (lib/jobs/materials materialsInUse) */
+  materials: { id: string; kind: string; description: string; specification: string; heatNumber: string; certificate: string }[];
 }): Record<string, unknown> {
   return recordContent("release", r);
+}
+
+/** Content of an inspection's sign-off: the round inspected, what was observed, what the criteria said, the decision. */
+export function inspectionContent(i: {
+  job: { id: string; number: string };
+  step: { id: string; key: string; jointId: string; specHash: string };
+  round: number;
+  /** the welder's sign-off of the round inspected */
+  performed: string | null;
+  passes: { passNumber: number; welderId: string; heatInputKJPerMm: number }[];
+  criteria: string;
+  observations: Record<string, unknown>;
+  items: { item: string; ok: boolean; limit: string; measured: string }[];
+  judged: "accept" | "reject";
+  decision: "accepted" | "rejected";
+  notes: string;
+  photos: readonly SignedPhoto[];
+}): Record<string, unknown> {
+  return recordContent("inspection", {
+    ...i,
+    passes: [...i.passes].sort((a, b) => a.passNumber - b.passNumber),
+    items: i.items.map((x) => ({ item: x.item, ok: x.ok, limit: x.limit, measured: x.measured })),
+    photos: [...i.photos].map((p) => ({ id: p.id, sha256: p.sha256 })).sort((a, b) => (a.sha256 < b.sha256 ? -1 : a.sha256 > b.sha256 ? 1 : 0)),
+  });
 }

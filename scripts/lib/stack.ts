@@ -6,6 +6,7 @@ import fs from "node:fs";
 import path from "node:path";
 import { runMigrations } from "../migrate";
 import { seed } from "../../db/seed";
+import { seedStorageFromEnv } from "../../db/seed/photos";
 import { log } from "./log";
 import { startLocalPostgres } from "./postgres";
 import { startMailCatcher, startObjectStore } from "./services";
@@ -56,8 +57,6 @@ export async function startStack(o: StackOptions): Promise<Stack> {
     }
     await runMigrations(env.DATABASE_URL!);
     log("db", "migrations applied");
-    const seeded = await seed(env.DATABASE_URL!);
-    log("db", seeded.created.length ? `demo data seeded (${seeded.created.length} records)` : "demo data already present; nothing changed");
 
     if (!process.env.SMTP_URL) {
       const mail = await startMailCatcher({ port: o.smtpPort, databaseUrl: env.DATABASE_URL! });
@@ -72,6 +71,9 @@ export async function startStack(o: StackOptions): Promise<Stack> {
       env.S3_ACCESS_KEY_ID = s3.accessKeyId;
       env.S3_SECRET_ACCESS_KEY = s3.secretAccessKey;
     }
+    // After the object store: the demo jobs carry photos.
+    const seeded = await seed(env.DATABASE_URL!, seedStorageFromEnv(env));
+    log("db", seeded.created.length ? `demo data seeded (${seeded.created.length} records)` : "demo data already present; nothing changed");
     if (!env.BETTER_AUTH_SECRET) {
       if (!fs.existsSync(o.secretFile)) fs.writeFileSync(o.secretFile, randomBytes(32).toString("base64url"), { mode: 0o600 });
       env.BETTER_AUTH_SECRET = fs.readFileSync(o.secretFile, "utf8").trim();

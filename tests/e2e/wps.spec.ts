@@ -4,8 +4,8 @@ test("a lead publishes a new WPS revision and sees the qualification warnings", 
   await signedInAs(page, "lead@irongully.example");
   await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "WPS library" }).click();
   await expect(page.getByRole("heading", { level: 1, name: "WPS library" })).toBeVisible();
-  await page.getByTestId("wps-table").getByRole("link", { name: "GX-WPS-02" }).click();
-  await expect(page.getByRole("heading", { level: 1 })).toContainText("GX-WPS-02");
+  await page.getByTestId("wps-table").getByRole("link", { name: "GUS-GTAW-01" }).click();
+  await expect(page.getByRole("heading", { level: 1 })).toContainText("GUS-GTAW-01");
 
   // A draft may be open from an earlier run on kept test data; otherwise start the next revision.
   const openDraft = page.getByTestId("edit-draft");
@@ -103,9 +103,9 @@ test("a welder reads the WPS library and the qualifications but changes neither"
   await expect(nav.getByRole("link", { name: "WPS library" })).toBeVisible();
   await expect(nav.getByRole("link", { name: "Qualifications" })).toBeVisible();
   await page.goto("/wps");
-  await expect(page.getByTestId("wps-table")).toContainText("GX-WPS-01");
+  await expect(page.getByTestId("wps-table")).toContainText("GUS-GMAW-02");
   await expect(page.getByTestId("start-wps-form")).toHaveCount(0);
-  await page.getByTestId("wps-table").getByRole("link", { name: "GX-WPS-01" }).click();
+  await page.getByTestId("wps-table").getByRole("link", { name: "GUS-GMAW-02" }).click();
   await expect(page.getByTestId("wps-preheat")).toHaveText("10 °C");
   await expect(page.getByRole("button", { name: /Start revision/ })).toHaveCount(0);
   await page.goto(`${page.url()}/revisions/1/edit`);

@@ -69,8 +69,44 @@ async function prepDone(jobId: string) {
 async function pass(who: Session, rec: Rec, key: string, over: Rec = {}) {
   return api(`/api/jobs/${rec.job.id}/steps/${step(rec, key).id}/passes`, {
     session: who,
-    body: { clientKey: crypto.randomUUID(), volts: 24, amps: 180, travelSpeed: { value: 8, unit: "in/min" }, preheatC: 20, interpassC: 120, fillerLot: "LOT-77", ...over },
+    // Inside the seeded GUS-GMAW-02 (17–21 V, 110–165 A, 250–450 mm/min, ≤ 1.2 kJ/mm).
+    body: { clientKey: crypto.randomUUID(), volts: 19, amps: 140, travelSpeed: { value: 300, unit: "mm/min" }, preheatC: 20, interpassC: 120, fillerLot: "LOT-77", ...over },
   });
+}
+
+/** A sound fillet as an inspector records it (AWS D1.1:2020 Table 8.1: nothing over its limit). */
+const SOUND_FILLET = {
+  cracks: false,
+  fusionComplete: true,
+  cratersFilled: true,
+  profileAcceptable: true,
+  specifiedLegMm: 6,
+  measuredLegMm: 6.5,
+  weldLengthMm: 80,
+  materialThicknessMm: 10,
+  undercutDepthMm: 0.3,
+  undercutAccumulatedMm: 0,
+  porosityMm: 0,
+  porosity12Mm: 0,
+  arcStrikes: false,
+  spatterAcceptable: true,
+};
+async function acceptJoint(who: Session, jobId: string, key: string) {
+  const up = await uploadFixture(who, jobId);
+  expect(up.status, up.text).toBe(201);
+  const s = step(await record(jobId, who), key);
+  const r = await api(`/api/jobs/${jobId}/steps/${s.id}/inspections`, { session: who, body: { criteria: "aws-d1.1-static", observations: SOUND_FILLET, decision: "accepted", notes: "", photoIds: [up.json.photoId], pin: PIN } });
+  expect(r.status, r.text).toBe(201);
+  return r.json.record as Rec;
+}
+/** A current qualification of the test's own for a welder and process (tested today). */
+async function qualify(email: string, process: string) {
+  const welderUserId = await withDb(async (c) => (await c.query<{ id: string }>(`select id from "user" where email = $1`, [email])).rows[0]!.id);
+  const r = await api("/api/qualifications", {
+    session: lead,
+    body: { welderUserId, process, positions: ["1F", "2F", "3F", "4F"], thicknessMinMm: 3, thicknessMaxMm: 20, fillerFNumber: 6, testDate: new Date().toISOString().slice(0, 10), notes: "Test coupon." },
+  });
+  expect(r.status, r.text).toBe(201);
 }
 
 describe("jobs: creation, checklist, list", () => {
@@ -309,7 +345,7 @@ describe("signing PIN", () => {
 });
 
 describe("hold points", () => {
-  it("steps after a hold stay locked until an inspector who did none of the work signs it", async () => {
+  it("steps after a hold stay locked until an inspector who did none of the work signs it, once the weld before it is accepted", async () => {
     const rec = await newJob();
     const torque = step(rec, "t-nut");
     const locked = await save(welder, rec, "t-nut", { achievedNm: 100, unit: "N_m" });
@@ -319,21 +355,23 @@ describe("hold points", () => {
     expect((await sign(inspector, rec.job.id, "h-visual")).status).toBe(409);
     await prepDone(rec.job.id);
     let r = await record(rec.job.id);
-    const cold = await pass(welder2, r, "w-1", { preheatC: 5 });
+    const cold = await pass(welder, r, "w-1", { preheatC: 5 });
     expect(cold.status).toBe(422);
     expect(cold.json.error.message).toMatch(/below the 10 °C minimum/);
-    const ok = await pass(welder2, r, "w-1");
+    const ok = await pass(welder, r, "w-1");
     expect(ok.status, ok.text).toBe(201);
-    expect(ok.json.record.passes[0].heatInputKJPerMm).toBeCloseTo(1.0205, 3); // 24 V, 180 A, 8 in/min GMAW (REFERENCES.md: Q = 1.020 kJ/mm)
-    expect((await sign(welder2, rec.job.id, "w-1")).status).toBe(201);
+    expect(ok.json.record.passes[0]).toMatchObject({ round: 1, outOfRange: false, wps: { reference: "GUS-GMAW-02", number: 1 } });
+    expect((await sign(welder, rec.job.id, "w-1")).status).toBe(201);
     r = await record(rec.job.id);
-    expect(r.job.status).toBe("on_hold");
+    expect(step(r, "w-1").joint.state).toBe("awaiting_inspection");
+    // The weld is not accepted yet, so the hold point waits.
+    const early = await sign(inspector, rec.job.id, "h-visual");
+    expect(early.status).toBe(409);
+    expect(early.json.error.message).toMatch(/W1 is not accepted yet/);
+    await acceptJoint(inspector, rec.job.id, "w-1");
     const notInspector = await sign(welder, rec.job.id, "h-visual");
     expect(notInspector.status).toBe(403);
     expect(notInspector.json.error.message).toMatch(/Only an inspector/);
-    const ownWeld = await sign(welder2, rec.job.id, "h-visual");
-    expect(ownWeld.status).toBe(403);
-    expect(ownWeld.json.error.message).toMatch(/weld pass before this hold point/);
     const held = await sign(inspector, rec.job.id, "h-visual");
     expect(held.status, held.text).toBe(201);
     const h = step(held.json.record, "h-visual").signOffs[0];
@@ -344,6 +382,20 @@ describe("hold points", () => {
     r = held.json.record;
     expect((await save(welder, r, "t-nut", { achievedNm: 100, unit: "N_m" })).status).toBe(200);
     expect(step(await record(rec.job.id), "t-nut").id).toBe(torque.id);
+  });
+
+  it("an inspector who welded before the hold point may not sign it", async () => {
+    const rec = await newJob();
+    await prepDone(rec.job.id);
+    // Priya (welder and inspector) gets a GMAW qualification of this test's own, then welds W1.
+    await qualify("welder2@irongully.example", "GMAW");
+    const r = await record(rec.job.id, welder2);
+    expect((await pass(welder2, r, "w-1")).status).toBe(201);
+    expect((await sign(welder2, rec.job.id, "w-1")).status).toBe(201);
+    await acceptJoint(inspector, rec.job.id, "w-1");
+    const ownWeld = await sign(welder2, rec.job.id, "h-visual");
+    expect(ownWeld.status).toBe(403);
+    expect(ownWeld.json.error.message).toMatch(/weld pass before this hold point/);
   });
 });
 

@@ -256,7 +256,7 @@ describe("WPS roles and shops", () => {
     expect((await api(`/api/wps?q=${encodeURIComponent(tag)}&state=draft`, { session: lead })).json.total).toBe(3);
     expect((await api(`/api/wps?q=${encodeURIComponent(tag)}&state=published`, { session: lead })).json.total).toBe(0);
     const seeded = await api("/api/wps?state=published&process=GTAW", { session: lead });
-    expect(seeded.json.wps.map((r: any) => r.reference)).toContain("GX-WPS-02");
+    expect(seeded.json.wps.map((r: any) => r.reference)).toContain("GUS-GTAW-01");
     expect((await api("/api/wps?state=nonsense", { session: lead })).status).toBe(400);
     expect((await api("/api/wps?pageSize=1000", { session: lead })).status).toBe(400);
   });
@@ -267,7 +267,7 @@ describe("for the jobs side: a published WPS's ranges for checkPassAgainstWps", 
     const shopId = await shopIdOf("iron-gully");
     const seeded = await publishedWpsByReference(shopId, "gx-wps-02");
     expect(seeded).not.toBeNull();
-    expect(seeded!).toMatchObject({ reference: "GX-WPS-02", status: "published", process: "GTAW" });
+    expect(seeded!).toMatchObject({ reference: "GUS-GTAW-01", status: "published", process: "GTAW" });
     expect(seeded!.number).toBeGreaterThanOrEqual(2);
     expect(seeded!.ranges).toMatchObject({ process: "GTAW", preheatMinC: 20 });
     // Below the WPS's minimum preheat the pass is refused outright (lib/welding wps-check).
@@ -277,6 +277,6 @@ describe("for the jobs side: a published WPS's ranges for checkPassAgainstWps", 
     expect(again).toEqual(seeded);
     const saltId = await shopIdOf("saltpan");
     await expect(loadWpsRanges(saltId, seeded!.revisionId)).rejects.toMatchObject({ code: "not_found" });
-    expect(await publishedWpsByReference(saltId, "GX-WPS-02")).toBeNull();
+    expect(await publishedWpsByReference(saltId, "GUS-GTAW-01")).toBeNull();
   });
 });
