@@ -265,7 +265,7 @@ describe("WPS roles and shops", () => {
 describe("for the jobs side: a published WPS's ranges for checkPassAgainstWps", () => {
   it("loads by reference (published only) and by revision id, and the check reads them", async () => {
     const shopId = await shopIdOf("iron-gully");
-    const seeded = await publishedWpsByReference(shopId, "gx-wps-02");
+    const seeded = await publishedWpsByReference(shopId, "gus-gtaw-01");
     expect(seeded).not.toBeNull();
     expect(seeded!).toMatchObject({ reference: "GUS-GTAW-01", status: "published", process: "GTAW" });
     expect(seeded!.number).toBeGreaterThanOrEqual(2);
