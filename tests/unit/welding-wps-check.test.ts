@@ -93,4 +93,13 @@ describe("WPS range check", () => {
     const r = checkPassAgainstWps(WPS, { ...PASS, heatInputKJPerMm: 1.1 });
     expect(r.findings.find((f) => f.field === "heatInput")).toMatchObject({ ok: true, value: 1.1 });
   });
+
+  it("a position outside the WPS's positions is flagged (out of range, not blocking); an absent position is not judged", () => {
+    const wps = { ...WPS, heatInputBasis: "iso-q" as const, positions: ["1F", "2F"] };
+    const off = checkPassAgainstWps(wps, { ...PASS, position: "3F" });
+    expect(off.findings.find((f) => f.field === "position")).toMatchObject({ ok: false, shown: "3F", message: "Position 3F is not among the WPS positions (1F, 2F)." });
+    expect(off).toMatchObject({ outOfRange: true, incomplete: false, blocked: false, ok: false });
+    expect(checkPassAgainstWps(wps, { ...PASS, position: "2F" }).ok).toBe(true);
+    expect(checkPassAgainstWps(wps, PASS).findings.some((f) => f.field === "position")).toBe(false);
+  });
 });
