@@ -27,8 +27,24 @@ export function describeJobActivity(action: string, detail: Record<string, unkno
       return `added a photo${stepTitle ? ` to ${step}` : ""}`;
     case "photo.removed":
       return `took a photo off ${step}`;
-    case "weld_pass.recorded":
-      return `recorded pass ${String(d.passNumber ?? "")} of ${String(d.joint ?? "a joint")} (${typeof d.heatInputKJPerMm === "number" ? d.heatInputKJPerMm.toFixed(2) : "?"} kJ/mm)`;
+    case "weld_pass.recorded": {
+      const round = typeof d.round === "number" && d.round > 1 ? `, repair round ${d.round}` : "";
+      const wps = d.wps ? ` to ${String(d.wps)}` : "";
+      const flag = d.outOfRange ? `, outside the WPS: ${Array.isArray(detail.findings) ? (detail.findings as string[]).join(" ") : ""}` : "";
+      return `recorded pass ${String(d.passNumber ?? "")} of ${String(d.joint ?? "a joint")}${wps}${round} (${typeof d.heatInputKJPerMm === "number" ? d.heatInputKJPerMm.toFixed(2) : "?"} kJ/mm)${flag}`;
+    }
+    case "weld_pass.overridden":
+      return `accepted pass ${String(d.passNumber ?? "")} of ${String(d.joint ?? "a joint")} as welded, outside its WPS: ${String(d.reason ?? "")}`;
+    case "weld.accepted":
+      return `inspected ${String(d.joint ?? "a joint")}${typeof d.round === "number" && d.round > 1 ? ` (repair round ${d.round})` : ""} and accepted it (signed)`;
+    case "weld.rejected":
+      return `inspected ${String(d.joint ?? "a joint")}${typeof d.round === "number" && d.round > 1 ? ` (repair round ${d.round})` : ""} and rejected it for repair${Array.isArray(detail.rejected) && (detail.rejected as string[]).length ? `: ${(detail.rejected as string[]).join(", ")}` : ""}${d.notes ? ` — ${String(d.notes)}` : ""}`;
+    case "material.recorded":
+      return `recorded ${String(d.description ?? "a material")}, heat/lot ${String(d.heatNumber ?? "")}`;
+    case "material.corrected":
+      return `corrected a material entry to ${String(d.description ?? "")}, heat/lot ${String(d.heatNumber ?? "")}: ${String(d.reason ?? "")}`;
+    case "material.withdrawn":
+      return `withdrew the material entry ${String(d.description ?? "")}: ${String(d.reason ?? "")}`;
     case "weld_pass.struck":
       return `struck out pass ${String(d.passNumber ?? "")} on ${step}`;
     case "nc.raised":
