@@ -261,6 +261,13 @@ describe("inspection rounds: reject, repair, accept", () => {
       expect(parsed.html).toContain("Open the joint");
     }
 
+    // The welder's bench lists the joint sent back, with what was found.
+    const bench = await api("/home/welder", { session: welder });
+    expect(bench.status).toBe(200);
+    expect(bench.text).toContain("Welds sent back for repair");
+    expect(bench.text).toContain(rec.job.number);
+    expect(bench.text).toContain("Undercut along the upper toe; grind and reweld.");
+
     // Round 1's pass is closed: it cannot be struck out. A repair pass goes into round 2.
     const round1Pass = r.passes[0];
     expect((await api(`/api/jobs/${jobId}/steps/${w1(r).id}/passes/${round1Pass.id}`, { session: welder, method: "DELETE" })).status).toBe(409);
