@@ -6,7 +6,7 @@ import { simpleParser } from "mailparser";
 import { beforeAll, describe, expect, it } from "vitest";
 import { insertPublishedProcedure, jobBody } from "../fixtures/jobs/procedure";
 import { uploadFixture } from "./jobs-support";
-import { api, session, waitFor, withDb, type Session } from "./support";
+import { api, BASE_URL, session, waitFor, withDb, type Session } from "./support";
 
 const PIN = "2468";
 type Rec = Record<string, any>;
@@ -107,6 +107,13 @@ async function inspect(who: Session, jobId: string, body: Rec) {
 }
 async function mailsTo(email: string, subjectLike: string) {
   return withDb(async (c) => (await c.query("select subject, to_address, raw from caught_mail where to_address like $1 and subject like $2 order by received_at", [`%${email}%`, subjectLike])).rows);
+}
+/** Printing the traveller issues the job's verify token. */
+async function tokenOf(jobId: string) {
+  const res = await fetch(`${BASE_URL}/api/jobs/${jobId}/traveller`, { headers: { cookie: lead.cookie, "x-forwarded-for": lead.ip } });
+  expect(res.status).toBe(200);
+  await res.arrayBuffer();
+  return withDb(async (c) => (await c.query("select token from job_token where job_id = $1", [jobId])).rows[0].token as string);
 }
 async function ensureQualified(email: string, process: string) {
   const welderUserId = await withDb(async (c) => (await c.query<{ id: string }>(`select id from "user" where email = $1`, [email])).rows[0]!.id);
@@ -305,6 +312,23 @@ describe("inspection rounds: reject, repair, accept", () => {
     expect((await api(`/api/jobs/${jobId}/steps/${h.id}/sign`, { session: inspector, body: { pin: PIN, baseVersion: h.version } })).status).toBe(201);
     const chain = await withDb(async (c) => (await c.query(`select count(*)::int as n from record_entry where job_id = $1`, [jobId])).rows[0].n);
     expect(chain).toBe(5); // round 1, its rejection, round 2, its acceptance, the hold
+    const token = await tokenOf(jobId);
+    expect((await api(`/api/verify/${token}`)).json.integrity).toMatchObject({ intact: true, entries: 5 });
+  });
+
+  it("the demo's repaired job: W2 rejected for undercut, repaired, accepted; released with its materials, intact", async () => {
+    const id = await withDb(async (c) => (await c.query(`select j.id from job j join shop s on s.id = j.shop_id where s.slug = 'iron-gully' and j.axle_tag = 'AX-0533'`)).rows[0]?.id as string | undefined);
+    expect(id).toBeTruthy();
+    const r = await record(id!, inspector);
+    expect(r.job.status).toBe("released");
+    const w2 = r.steps.find((x: Rec) => x.key === "fit-weld-w2");
+    expect(w2.joint.rounds.map((x: Rec) => x.inspection.decision)).toEqual(["rejected", "accepted"]);
+    expect(w2.joint.rounds[0].inspection.items.find((i: Rec) => i.item === "undercut").ok).toBe(false);
+    expect(r.steps.filter((x: Rec) => x.kind === "weld").every((x: Rec) => x.signed)).toBe(true);
+    expect(r.materials.map((m: Rec) => m.heatNumber)).toEqual(expect.arrayContaining(["HT 7731-0530", "LOT 24-118"]));
+    expect(r.inspections.every((i: Rec) => i.photoIds.length >= 1)).toBe(true);
+    const token = await tokenOf(id!);
+    expect((await api(`/api/verify/${token}`)).json.integrity.intact).toBe(true);
   });
 
   it("rejecting what every entry accepts needs a reason; the database refuses changes to an inspection", async () => {
