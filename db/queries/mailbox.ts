@@ -1,9 +1,11 @@
 import "server-only";
-import { count, desc } from "drizzle-orm";
+import { count, desc, eq, isNull, or } from "drizzle-orm";
 import { caughtMail } from "@/db/schema";
 import { db } from "@/lib/db";
 
-export async function listCaughtMail(page: number, pageSize: number) {
+/** Mails caught for this shop, and those sent for no shop in particular. */
+export async function listCaughtMail(shopId: string, page: number, pageSize: number) {
+  const mine = or(eq(caughtMail.shopId, shopId), isNull(caughtMail.shopId));
   const [rows, [total]] = await Promise.all([
     db()
       .select({
@@ -16,10 +18,11 @@ export async function listCaughtMail(page: number, pageSize: number) {
         receivedAt: caughtMail.receivedAt,
       })
       .from(caughtMail)
+      .where(mine)
       .orderBy(desc(caughtMail.receivedAt))
       .limit(pageSize)
       .offset((page - 1) * pageSize),
-    db().select({ n: count() }).from(caughtMail),
+    db().select({ n: count() }).from(caughtMail).where(mine),
   ]);
   return { rows, total: total?.n ?? 0 };
 }

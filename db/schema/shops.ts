@@ -82,9 +82,11 @@ export const caughtMail = pgTable(
     htmlBody: text("html_body"),
     attachments: jsonb("attachments").$type<{ filename: string | null; contentType: string; size: number }[]>().notNull().default([]),
     raw: text("raw").notNull(),
+    // The shop a mail was sent for (the app's X-Gusset-Shop header), so a lead's mailbox shows only their shop's.
+    shopId: uuid("shop_id"),
     receivedAt: timestamp("received_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index("caught_mail_received_idx").on(t.receivedAt)],
+  (t) => [index("caught_mail_received_idx").on(t.receivedAt), index("caught_mail_shop_idx").on(t.shopId, t.receivedAt)],
 );
 
 // Mails the app means to send; a failed send stays here and is retried, so no record waits on SMTP.

@@ -50,6 +50,8 @@ async function deliver(id: string, mail: Mail): Promise<boolean> {
       text: mail.text,
       html: mail.html,
       attachments: (mail.attachments ?? []).map((a) => ({ filename: a.filename, contentType: a.contentType, content: a.content })),
+      // Lets the local catcher file the mail under its shop; real servers pass it through unread.
+      ...(mail.shopId ? { headers: { "X-Gusset-Shop": mail.shopId } } : {}),
     });
     await db().update(mailOutbox).set({ sentAt: new Date(), lastError: null }).where(eq(mailOutbox.id, id));
     return true;
@@ -73,7 +75,7 @@ export async function flushOutbox(limit = 50): Promise<{ tried: number; sent: nu
   let sent = 0;
   for (const m of pending) {
     const attachments = m.attachments.map((a) => ({ filename: a.filename, contentType: a.contentType, content: Buffer.from(a.base64, "base64") }));
-    if (await deliver(m.id, { to: m.toAddress, subject: m.subject, text: m.textBody, html: m.htmlBody, attachments })) sent++;
+    if (await deliver(m.id, { to: m.toAddress, subject: m.subject, text: m.textBody, html: m.htmlBody, attachments, shopId: m.shopId })) sent++;
   }
   return { tried: pending.length, sent };
 }

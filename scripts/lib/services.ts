@@ -8,6 +8,12 @@ import S3rver from "s3rver";
 import { SMTPServer } from "smtp-server";
 import { log } from "./log";
 
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+function shopHeader(value: unknown): string | null {
+  const text = typeof value === "string" ? value.trim() : null;
+  return text && UUID.test(text) ? text : null;
+}
+
 export async function startMailCatcher(opts: { port: number; databaseUrl: string }) {
   const pool = new pg.Pool({ connectionString: opts.databaseUrl, max: 2 });
   const server = new SMTPServer({
@@ -24,8 +30,8 @@ export async function startMailCatcher(opts: { port: number; databaseUrl: string
           const parsed = await simpleParser(raw);
           const to = [parsed.to].flat().filter(Boolean).map((a) => (a ? a.text : "")).join(", ");
           await pool.query(
-            `insert into caught_mail (message_id, from_address, to_address, subject, text_body, html_body, attachments, raw)
-             values ($1, $2, $3, $4, $5, $6, $7, $8)`,
+            `insert into caught_mail (message_id, from_address, to_address, subject, text_body, html_body, attachments, raw, shop_id)
+             values ($1, $2, $3, $4, $5, $6, $7, $8, $9)`,
             [
               parsed.messageId ?? null,
               parsed.from?.text ?? "",
@@ -35,6 +41,7 @@ export async function startMailCatcher(opts: { port: number; databaseUrl: string
               typeof parsed.html === "string" ? parsed.html : null,
               JSON.stringify(parsed.attachments.map((a) => ({ filename: a.filename ?? null, contentType: a.contentType, size: a.size }))),
               raw.toString("utf8"),
+              shopHeader(parsed.headers.get("x-gusset-shop")),
             ],
           );
           callback();

@@ -268,6 +268,14 @@ describe("inspection rounds: reject, repair, accept", () => {
       expect(parsed.html).toContain("Open the joint");
     }
 
+    // The local mailbox files each mail under its shop: the other shop's lead does not see these.
+    const ironMailbox = await api("/mailbox", { session: lead });
+    expect(ironMailbox.text).toContain(`Weld W1 on ${rec.job.number} rejected`);
+    const saltLead = await session("lead@saltpan.example");
+    const saltMailbox = await api("/mailbox", { session: saltLead });
+    expect(saltMailbox.status).toBe(200);
+    expect(saltMailbox.text).not.toContain(rec.job.number);
+
     // The welder's bench lists the joint sent back, with what was found.
     const bench = await api("/home/welder", { session: welder });
     expect(bench.status).toBe(200);

@@ -12,10 +12,10 @@ export const metadata: Metadata = { title: "Local mailbox" };
 const PAGE_SIZE = 15;
 
 export default async function MailboxPage({ searchParams }: { searchParams: Promise<Record<string, string | undefined>> }) {
-  await requireShop("mailbox:read");
+  const ctx = await requireShop("mailbox:read");
   if (env().LOCAL_MAILBOX !== "on") notFound();
   const page = z.coerce.number().int().min(1).max(10_000).catch(1).parse((await searchParams).page);
-  const { rows, total } = await listCaughtMail(page, PAGE_SIZE);
+  const { rows, total } = await listCaughtMail(ctx.shopId, page, PAGE_SIZE);
   const pages = Math.max(1, Math.ceil(total / PAGE_SIZE));
   return (
     <>
