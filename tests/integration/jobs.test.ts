@@ -2,8 +2,8 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { recordEntryFor } from "@/lib/records/entry";
 import { contentHash, verifyChain } from "@/lib/seal";
 import { vinCheckDigit } from "@/lib/vin";
-import { GEOMETRY_INPUT, insertPublishedProcedure, jobBody, MEASURING_PROCEDURE_CONTENT, SHORT_PROCEDURE_CONTENT, TEST_PROCEDURE_CONTENT } from "../fixtures/jobs/procedure";
-import { uploadFixture } from "./jobs-support";
+import { GEOMETRY_INPUT, insertPublishedProcedure, jobBody, MEASURING_PROCEDURE_CONTENT, SHORT_PROCEDURE_CONTENT, SOUND_FILLET, TEST_PROCEDURE_CONTENT } from "../fixtures/jobs/procedure";
+import { ensureQualified, uploadFixture } from "./jobs-support";
 import { api, session, signIn, waitFor, withDb, type Session } from "./support";
 
 const PIN = "2468";
@@ -74,23 +74,6 @@ async function pass(who: Session, rec: Rec, key: string, over: Rec = {}) {
   });
 }
 
-/** A sound fillet as an inspector records it (AWS D1.1:2020 Table 8.1: nothing over its limit). */
-const SOUND_FILLET = {
-  cracks: false,
-  fusionComplete: true,
-  cratersFilled: true,
-  profileAcceptable: true,
-  specifiedLegMm: 6,
-  measuredLegMm: 6.5,
-  weldLengthMm: 80,
-  materialThicknessMm: 10,
-  undercutDepthMm: 0.3,
-  undercutAccumulatedMm: 0,
-  porosityMm: 0,
-  porosity12Mm: 0,
-  arcStrikes: false,
-  spatterAcceptable: true,
-};
 async function acceptJoint(who: Session, jobId: string, key: string) {
   const up = await uploadFixture(who, jobId);
   expect(up.status, up.text).toBe(201);
@@ -98,15 +81,6 @@ async function acceptJoint(who: Session, jobId: string, key: string) {
   const r = await api(`/api/jobs/${jobId}/steps/${s.id}/inspections`, { session: who, body: { criteria: "aws-d1.1-static", observations: SOUND_FILLET, decision: "accepted", notes: "", photoIds: [up.json.photoId], pin: PIN } });
   expect(r.status, r.text).toBe(201);
   return r.json.record as Rec;
-}
-/** A current qualification of the test's own for a welder and process (tested today). */
-async function qualify(email: string, process: string) {
-  const welderUserId = await withDb(async (c) => (await c.query<{ id: string }>(`select id from "user" where email = $1`, [email])).rows[0]!.id);
-  const r = await api("/api/qualifications", {
-    session: lead,
-    body: { welderUserId, process, positions: ["1F", "2F", "3F", "4F"], thicknessMinMm: 3, thicknessMaxMm: 20, fillerFNumber: 6, testDate: new Date().toISOString().slice(0, 10), notes: "Test coupon." },
-  });
-  expect(r.status, r.text).toBe(201);
 }
 
 describe("jobs: creation, checklist, list", () => {
@@ -388,7 +362,7 @@ describe("hold points", () => {
     const rec = await newJob();
     await prepDone(rec.job.id);
     // Priya (welder and inspector) gets a GMAW qualification of this test's own, then welds W1.
-    await qualify("welder2@irongully.example", "GMAW");
+    await ensureQualified(lead, "welder2@irongully.example", "GMAW");
     const r = await record(rec.job.id, welder2);
     expect((await pass(welder2, r, "w-1")).status).toBe(201);
     expect((await sign(welder2, rec.job.id, "w-1")).status).toBe(201);

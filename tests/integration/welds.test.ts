@@ -4,8 +4,8 @@
 // and the database refusing changes to inspections, for the app's role and the superuser alike.
 import { simpleParser } from "mailparser";
 import { beforeAll, describe, expect, it } from "vitest";
-import { insertPublishedProcedure, jobBody } from "../fixtures/jobs/procedure";
-import { uploadFixture } from "./jobs-support";
+import { gmawWeldStep, insertPublishedProcedure, jobBody, SOUND_FILLET } from "../fixtures/jobs/procedure";
+import { ensureQualified, uploadFixture } from "./jobs-support";
 import { api, BASE_URL, session, waitFor, withDb, type Session } from "./support";
 
 const PIN = "2468";
@@ -18,24 +18,7 @@ let inspector: Session; // Rosa Lindqvist
 let gmawVersion: string;
 let fcawVersion: string;
 
-const weldStep = (over: Record<string, unknown>) => ({
-  key: "w-1",
-  kind: "weld",
-  title: "Weld joint W1",
-  instructions: "",
-  signedBy: "welder",
-  photos: { required: false, min: 0 },
-  jointId: "W1",
-  jointType: "fillet",
-  sizeMm: 6,
-  lengthMm: 80,
-  position: "2F",
-  process: "GMAW",
-  wpsRef: "GUS-GMAW-02",
-  filler: "ER70S-6",
-  minPreheatC: 10,
-  ...over,
-});
+const weldStep = gmawWeldStep;
 const content = (weld: Record<string, unknown>) => ({
   sections: [
     {
@@ -51,22 +34,7 @@ const content = (weld: Record<string, unknown>) => ({
 
 // AWS D1.1:2020 Table 8.1, statically loaded, material < 1 in: undercut ≤ 1/32 in (0.79 mm), or up to
 // 1/16 in (1.59 mm) for 2 in (50.8 mm) in any 12 in. 1.2 mm over 60 mm is therefore rejected.
-const SOUND = {
-  cracks: false,
-  fusionComplete: true,
-  cratersFilled: true,
-  profileAcceptable: true,
-  specifiedLegMm: 6,
-  measuredLegMm: 6.5,
-  weldLengthMm: 80,
-  materialThicknessMm: 10,
-  undercutDepthMm: 0.3,
-  undercutAccumulatedMm: 0,
-  porosityMm: 0,
-  porosity12Mm: 0,
-  arcStrikes: false,
-  spatterAcceptable: true,
-};
+const SOUND = SOUND_FILLET;
 const UNDERCUT = { ...SOUND, undercutDepthMm: 1.2, undercutAccumulatedMm: 60 };
 
 beforeAll(async () => {
@@ -114,16 +82,6 @@ async function tokenOf(jobId: string) {
   expect(res.status).toBe(200);
   await res.arrayBuffer();
   return withDb(async (c) => (await c.query("select token from job_token where job_id = $1", [jobId])).rows[0].token as string);
-}
-async function ensureQualified(email: string, process: string) {
-  const welderUserId = await withDb(async (c) => (await c.query<{ id: string }>(`select id from "user" where email = $1`, [email])).rows[0]!.id);
-  const have = (await api(`/api/qualifications?welder=${welderUserId}&process=${process}&status=current`, { session: lead })).json.qualifications ?? [];
-  if (have.length) return;
-  const r = await api("/api/qualifications", {
-    session: lead,
-    body: { welderUserId, process, positions: ["1F", "2F", "3F", "4F"], thicknessMinMm: 3, thicknessMaxMm: 20, fillerFNumber: 6, testDate: new Date().toISOString().slice(0, 10), notes: "Test coupon." },
-  });
-  expect(r.status, r.text).toBe(201);
 }
 
 describe("weld passes against the WPS and the welder's qualification", () => {
@@ -188,7 +146,7 @@ describe("weld passes against the WPS and the welder's qualification", () => {
   it("preheat below the WPS minimum is refused with the reason; nothing is recorded", async () => {
     const rec = await newJob(fcawVersion);
     // The FCAW joint asks 50 °C; GUS-FCAW-01 too. The lapsed welder is refused first, so a qualified one is used.
-    await ensureQualified("welder2@irongully.example", "FCAW");
+    await ensureQualified(lead, "welder2@irongully.example", "FCAW");
     const r = await pass(welder2, rec, { volts: 24, amps: 200, preheatC: 30 });
     expect(r.status).toBe(422);
     expect(r.json.error.message).toMatch(/below the 50 °C minimum/);
@@ -287,7 +245,7 @@ describe("inspection rounds: reject, repair, accept", () => {
     const round1Pass = r.passes[0];
     expect((await api(`/api/jobs/${jobId}/steps/${w1(r).id}/passes/${round1Pass.id}`, { session: welder, method: "DELETE" })).status).toBe(409);
     // Priya (welder and inspector) makes a repair pass, so she may not inspect it.
-    await ensureQualified("welder2@irongully.example", "GMAW");
+    await ensureQualified(lead, "welder2@irongully.example", "GMAW");
     const repair = await pass(welder2, r);
     expect(repair.status, repair.text).toBe(201);
     expect(repair.json.record.passes.find((p: Rec) => p.id === repair.json.passId)).toMatchObject({ round: 2, passNumber: 2 });
