@@ -37,7 +37,16 @@ export async function raiseNonconformance(
             number,
             description: input.description,
             proposedDisposition: input.proposedDisposition,
-            observed: step.effectiveValue ?? {},
+            // A weld joint's nonconformance keeps what was out: the round's passes outside their WPS.
+            observed: step.joint
+              ? {
+                  ...(step.effectiveValue ?? {}),
+                  round: step.joint.round,
+                  outOfRange: record.passes
+                    .filter((p) => p.stepId === step.id && !p.removed && p.round === step.joint!.round && p.outOfRange)
+                    .map((p) => ({ passNumber: p.passNumber, findings: p.findings.filter((f) => !f.ok).map((f) => f.message) })),
+                }
+              : (step.effectiveValue ?? {}),
             raisedBy: ctx.userId,
           })
           .returning({ id: nonconformance.id });

@@ -143,6 +143,20 @@ describe("weld passes against the WPS and the welder's qualification", () => {
     expect(content.passes[0]).toMatchObject({ outOfRange: true, override: { reason: "Procedure qualification record PQR-7 covers 24 V on this joint" }, wps: { reference: "GUS-GMAW-02", revision: 1 } });
   });
 
+  it("or a nonconformance raised after the pass and dispositioned covers it; the NC keeps the findings", async () => {
+    const rec = await newJob();
+    const r = await pass(welder, rec, { amps: 180 });
+    expect(r.json.record.passes[0].outOfRange).toBe(true);
+    const raised = await api(`/api/jobs/${rec.job.id}/nonconformances`, { session: welder, body: { stepId: w1(rec).id, description: "Pass 1 ran at 180 A, over the WPS", proposedDisposition: "use_as_is" } });
+    expect(raised.status, raised.text).toBe(201);
+    const nc = raised.json.record.nonconformances[0];
+    expect(nc.observed).toMatchObject({ round: 1, outOfRange: [{ passNumber: 1, findings: ["Current 180 A is above the WPS maximum of 165 A."] }] });
+    expect((await signRound(welder, rec.job.id)).status).toBe(422);
+    const decided = await api(`/api/jobs/${rec.job.id}/nonconformances/${nc.id}/disposition`, { session: inspector, body: { disposition: "use_as_is", notes: "Within the qualified range of the PQR.", pin: PIN } });
+    expect(decided.status, decided.text).toBeLessThan(300);
+    expect((await signRound(welder, rec.job.id)).status).toBe(201);
+  });
+
   it("preheat below the WPS minimum is refused with the reason; nothing is recorded", async () => {
     const rec = await newJob(fcawVersion);
     // The FCAW joint asks 50 °C; GUS-FCAW-01 too. The lapsed welder is refused first, so a qualified one is used.
