@@ -95,7 +95,8 @@ export const weldPassSchema = z
   .strict()
   .superRefine((p, ctx) => {
     const fromBead = p.beadLength !== undefined || p.arcTimeS !== undefined;
-    if (!p.travelSpeed && !(p.beadLength && p.arcTimeS !== undefined) && p.machineEnergyKJ === undefined) {
+    // The travel speed is always known: given, or bead length over arc time (a machine reading alone has no speed).
+    if (!p.travelSpeed && !(p.beadLength && p.arcTimeS !== undefined)) {
       ctx.addIssue({ code: "custom", path: ["travelSpeed"], message: "Enter the travel speed, or the bead length and the arc time." });
     }
     if (p.travelSpeed && fromBead && p.machineEnergyKJ === undefined && p.machinePowerW === undefined) {
