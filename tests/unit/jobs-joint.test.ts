@@ -5,6 +5,7 @@ import { holdWaitingReason } from "@/lib/jobs/assemble";
 import { inspectionSeparation, jointView } from "@/lib/jobs/joint";
 import { materialsInUse } from "@/lib/jobs/materials";
 import { stepReadiness } from "@/lib/jobs/readiness";
+import { weldPassSchema } from "@/lib/jobs/schemas";
 import type { InspectionView, NonconformanceView, PassView, SignOffView } from "@/lib/jobs/record";
 import type { Step } from "@/lib/procedures/schema";
 
@@ -95,5 +96,24 @@ describe("materials in use", () => {
     const row = (id: string, heatNumber: string, correctsId: string | null = null, withdrawn = false) => ({ id, kind: "base", description: "Plate", specification: "", heatNumber, certificate: "", correctsId, withdrawn });
     const rows = [row("a", "HT 1"), row("b", "HT 2", "a"), row("c", "LOT 9"), row("d", "LOT 9", "c", true)];
     expect(materialsInUse(rows).map((m) => m.heatNumber)).toEqual(["HT 2"]);
+  });
+});
+
+describe("what a weld pass entry must say", () => {
+  const base = { clientKey: "pass-key-0001", volts: 19, amps: 140, preheatC: 20, fillerLot: "LOT 1" };
+  const issues = (body: Record<string, unknown>) => {
+    const r = weldPassSchema.safeParse({ ...base, ...body });
+    return r.success ? [] : r.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`);
+  };
+  it("travel speed, or bead length and arc time (ASME IX QW-409.1(a)); never both, never neither", () => {
+    expect(issues({ travelSpeed: { value: 300, unit: "mm/min" } })).toEqual([]);
+    expect(issues({ beadLength: { value: 100, unit: "mm" }, arcTimeS: 20 })).toEqual([]);
+    expect(issues({})).toEqual(["travelSpeed: Enter the travel speed, or the bead length and the arc time."]);
+    expect(issues({ travelSpeed: { value: 300, unit: "mm/min" }, beadLength: { value: 100, unit: "mm" }, arcTimeS: 20 })).toEqual(["beadLength: Give the travel speed or the bead length and arc time, not both."]);
+  });
+  it("a machine reading (QW-409.1(c)) needs the bead length; average power also the arc time; not both readings", () => {
+    expect(issues({ travelSpeed: { value: 300, unit: "mm/min" }, machineEnergyKJ: 60 })).toEqual(["beadLength: A reading from the machine needs the bead length it was welded over."]);
+    expect(issues({ travelSpeed: { value: 300, unit: "mm/min" }, beadLength: { value: 100, unit: "mm" }, machinePowerW: 2660 })).toEqual(["arcTimeS: Average power needs the arc time."]);
+    expect(issues({ beadLength: { value: 100, unit: "mm" }, arcTimeS: 20, machineEnergyKJ: 60, machinePowerW: 2660 })).toEqual(["machinePowerW: Give the machine's arc energy or its average power, not both."]);
   });
 });
