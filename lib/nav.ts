@@ -7,6 +7,7 @@ export const NAV: NavItem[] = [
   { href: "/home/lead", label: "Lead desk", action: "people:manage", roles: ["lead"] },
   { href: "/home/welder", label: "Bench", action: "step:sign", roles: ["welder"] },
   { href: "/home/inspector", label: "Inspection desk", action: "inspection:sign", roles: ["inspector"] },
+  { href: "/inspections", label: "Welds to inspect", action: "inspection:sign", roles: ["inspector"] },
   { href: "/home/auditor", label: "Record lookup", action: "audit:search", roles: ["auditor"] },
   { href: "/jobs", label: "Jobs", action: "job:read" },
   { href: "/records", label: "Released records", action: "audit:search", roles: ["lead", "inspector"] },

@@ -9,9 +9,17 @@ import { JOB_STATE_LABELS } from "@/lib/jobs/labels";
 import type { JobRecord, StepView } from "@/lib/jobs/record";
 import { kindGlyph } from "./glyph";
 import { StepPanel } from "./step-panel";
+import { jointStateWord } from "./weld-control";
 import { useJob } from "./use-job";
 
 function stepStatus(s: StepView, record: JobRecord): { word: string; shape: string; cls: string } {
+  if (s.joint && s.joint.state !== "welding") {
+    // A weld joint says where it stands: accepted, waiting for inspection, or in repair.
+    const word = jointStateWord(s.joint);
+    if (s.joint.state === "accepted") return { word, shape: "●", cls: "text-[#1f3305]" };
+    if (s.joint.state === "repair") return { word, shape: "↺", cls: "text-[#8a1d15]" };
+    return { word, shape: "◐", cls: "text-[#5c3d00]" };
+  }
   if (s.signed) return { word: "Signed", shape: "●", cls: "text-[#1f3305]" };
   if (record.nonconformances.some((n) => n.stepId === s.id && !n.disposition)) return { word: "NC open", shape: "✕", cls: "text-[#8a1d15]" };
   if (s.lockedBy) return { word: "Locked", shape: "▲", cls: "text-[#5c3d00]" };

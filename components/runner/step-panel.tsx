@@ -6,7 +6,7 @@ import { KIND_LABELS } from "@/lib/procedures/labels";
 import { kindGlyph } from "./glyph";
 import { SafetyNote } from "@/components/safety-note";
 import { photosNeeded, stepReadiness } from "@/lib/jobs/readiness";
-import type { JobRecord, StepView } from "@/lib/jobs/record";
+import type { JobRecord, JointView, SignOffView, StepView } from "@/lib/jobs/record";
 import { signingRole } from "@/lib/jobs/roles";
 import { outOfToleranceText, valueSummary } from "@/lib/jobs/summary";
 import { measureBounds, measureVerdict, torqueVerdict } from "@/lib/jobs/tolerance";
@@ -24,7 +24,8 @@ import { SignOffList } from "./sign-off-list";
 import { useSetRecord } from "./use-job";
 import { useStepDraft, type SaveState } from "./use-step-draft";
 import { Pill, VerdictBox } from "./verdict";
-import { WeldControl } from "./weld-control";
+import { InspectionPanel } from "./inspection-panel";
+import { JointStatePill, WeldControl } from "./weld-control";
 
 const SAVE_WORDS: Record<SaveState, { text: string; tone: "pass" | "wait" | "fail" | "idle" }> = {
   saved: { text: "Saved", tone: "pass" },
@@ -35,6 +36,18 @@ const SAVE_WORDS: Record<SaveState, { text: string; tone: "pass" | "wait" | "fai
   refused: { text: "Not saved", tone: "fail" },
 };
 
+function weldSignOffSummary(s: SignOffView, joint: JointView): string {
+  const n = s.round ?? 1;
+  const round = joint.rounds.find((r) => r.round === n);
+  const name = n > 1 ? `Repair round ${n}` : "Round 1";
+  if (s.meaning === "inspected") {
+    const i = round?.inspection;
+    return i ? `${name}: ${i.decision === "accepted" ? "accepted" : "rejected for repair"}` : name;
+  }
+  const count = round?.passes.filter((p) => !p.removed).length ?? 0;
+  return `${name}: ${count} pass${count === 1 ? "" : "es"} welded`;
+}
+
 export function StepPanel({ record, step, onNext, isLast }: { record: JobRecord; step: StepView; onNext: () => void; isLast: boolean }) {
   const jobId = record.job.id;
   const viewer = record.viewer;
@@ -42,7 +55,10 @@ export function StepPanel({ record, step, onNext, isLast }: { record: JobRecord;
   const jobOpen = record.job.status !== "released" && record.job.status !== "void";
   const role = signingRole(step.spec, viewer.roles);
   const mayWork = !("refuse" in role);
-  const editable = jobOpen && !step.signed && !step.lockedBy && mayWork;
+  const joint = step.joint;
+  // A weld joint is worked while its round is open: before its welder signs it, or in repair after a rejection.
+  const roundOpen = !joint || joint.state === "welding" || joint.state === "repair";
+  const editable = jobOpen && !step.signed && !step.lockedBy && mayWork && roundOpen;
   const draft = useStepDraft(jobId, step, editable);
   const [amending, setAmending] = useState(false);
   const [amendValue, setAmendValue] = useState<Record<string, unknown>>(step.effectiveValue ?? {});
@@ -52,7 +68,8 @@ export function StepPanel({ record, step, onNext, isLast }: { record: JobRecord;
   const [message, setMessage] = useState<string | null>(null);
 
   const photos = record.photos.filter((p) => p.stepId === step.id && !p.removed);
-  const passes = record.passes.filter((p) => p.stepId === step.id);
+  // Weld steps: the passes of the joint's current round, as the server counts them for signing.
+  const passes = record.passes.filter((p) => p.stepId === step.id && (!joint || p.round === joint.round));
   const ncs = record.nonconformances.filter((n) => n.stepId === step.id);
   const openNc = ncs.find((n) => !n.disposition);
   const value = amending ? amendValue : step.signed ? (step.effectiveValue ?? {}) : draft.draft;
@@ -62,6 +79,7 @@ export function StepPanel({ record, step, onNext, isLast }: { record: JobRecord;
     photoCount: photos.length,
     passes: passes.filter((p) => !p.removed),
     ncs: ncs.map((n) => ({ number: n.number, disposition: n.disposition?.disposition ?? null, observed: n.observed })),
+    joint: joint ?? undefined,
   });
   const controlsEditable = editable || amending;
   const onChange = (v: Record<string, unknown>) => (amending ? setAmendValue(v) : draft.setDraft(v));
@@ -149,8 +167,11 @@ export function StepPanel({ record, step, onNext, isLast }: { record: JobRecord;
       case "weld":
         return (
           <>
-            <WeldControl jobId={jobId} stepId={step.id} spec={spec} passes={passes} readOnly={!editable} canRecord={viewer.roles.includes("welder")} me={viewer.userId} unitSystem={viewer.unitSystem} />
-            <NoteControl key={key} value={value as { note?: string }} readOnly={!controlsEditable} onChange={onChange} />
+            <WeldControl record={record} step={step} jobOpen={jobOpen} />
+            {/* The note is signed with the first round and stays (the server refuses a later change). */}
+            {(controlsEditable && step.signOffs.length === 0) || (value as { note?: string }).note ? (
+              <NoteControl key={key} value={value as { note?: string }} readOnly={!controlsEditable || step.signOffs.length > 0} onChange={onChange} />
+            ) : null}
           </>
         );
       case "hold":
@@ -169,7 +190,7 @@ export function StepPanel({ record, step, onNext, isLast }: { record: JobRecord;
     }
   };
 
-  const meaningLabel = step.meaning === "inspected" ? "Sign as inspected" : "Sign as performed";
+  const meaningLabel = joint ? `Sign round ${joint.round}` : step.meaning === "inspected" ? "Sign as inspected" : "Sign as performed";
   const needed = photosNeeded(step.spec);
   const save = SAVE_WORDS[draft.state];
   const latest = step.signOffs.filter((o) => !step.signOffs.some((x) => x.amendsSignOffId === o.id)).at(-1);
@@ -187,7 +208,12 @@ export function StepPanel({ record, step, onNext, isLast }: { record: JobRecord;
           </h2>
           <div className="flex flex-wrap gap-2">
             <Pill tone="info">{KIND_LABELS[step.kind]}</Pill>
-            {step.signed ? <Pill tone="pass" testId="step-status">Signed</Pill> : step.lockedBy ? <Pill tone="wait" testId="step-status">Locked</Pill> : openNc ? <Pill tone="fail" testId="step-status">NC-{openNc.number} open</Pill> : <Pill tone="idle" testId="step-status">Open</Pill>}
+            {joint && !step.lockedBy ? (
+              <>
+                <JointStatePill joint={joint} testId="step-status" />
+                {openNc ? <Pill tone="fail">NC-{openNc.number} open</Pill> : null}
+              </>
+            ) : step.signed ? <Pill tone="pass" testId="step-status">Signed</Pill> : step.lockedBy ? <Pill tone="wait" testId="step-status">Locked</Pill> : openNc ? <Pill tone="fail" testId="step-status">NC-{openNc.number} open</Pill> : <Pill tone="idle" testId="step-status">Open</Pill>}
           </div>
         </div>
       </header>
@@ -263,8 +289,11 @@ export function StepPanel({ record, step, onNext, isLast }: { record: JobRecord;
       {step.signed ? (
         <section className="space-y-3" aria-labelledby="signed-h">
           <h3 id="signed-h" className="text-lg font-bold">Signed record</h3>
-          <SignOffList signOffs={step.signOffs} summary={(s) => valueSummary(step.spec, s.value, viewer.unitSystem, passes.filter((p) => !p.removed).length)} />
-          {jobOpen && mayWork && !amending ? (
+          <SignOffList signOffs={step.signOffs} summary={(s) => (joint ? weldSignOffSummary(s, joint) : valueSummary(step.spec, s.value, viewer.unitSystem, passes.filter((p) => !p.removed).length))} />
+          {joint ? (
+            <p className="text-graphite-900">A weld joint is not amended: a problem found later is raised as a nonconformance on this step.</p>
+          ) : null}
+          {jobOpen && mayWork && !amending && !joint ? (
             <button type="button" className="btn btn-quiet min-h-14 text-lg" onClick={() => { setAmendValue(step.effectiveValue ?? {}); setAmending(true); }} data-testid="amend-start">
               Correct with an amendment
             </button>
@@ -285,6 +314,15 @@ export function StepPanel({ record, step, onNext, isLast }: { record: JobRecord;
             </div>
           ) : null}
         </section>
+      ) : joint && joint.state === "awaiting_inspection" ? (
+        viewer.roles.includes("inspector") ? (
+          <InspectionPanel key={`${step.id}:${joint.round}`} record={record} step={step} />
+        ) : (
+          <VerdictBox tone="wait" title={`${joint.round > 1 ? `Repair round ${joint.round}` : "Round 1"} is signed and waits for inspection`} testId="awaiting-inspection">
+            {joint.rounds[joint.round - 1]?.performed ? <p>Signed by {joint.rounds[joint.round - 1]!.performed!.printedName}, {joint.rounds[joint.round - 1]!.performed!.signedAt.slice(0, 16).replace("T", " ")} UTC.</p> : null}
+            <p>An inspector who made no pass of this joint inspects it once it has cooled. If it is rejected, a repair round opens here.</p>
+          </VerdictBox>
+        )
       ) : (
         <section className="space-y-3 rounded-xl border-2 border-graphite-300 bg-white p-4" aria-labelledby="sign-h" data-testid="sign-panel">
           <div className="flex flex-wrap items-center justify-between gap-2">

@@ -149,6 +149,8 @@ export type WaitingJoint = {
   jobNumber: string;
   axleTag: string;
   stepId: string;
+  /** the runner's ?step= takes the key */
+  stepKey: string;
   stepTitle: string;
   jointId: string;
   round: number;
@@ -174,9 +176,9 @@ export async function jointsAwaitingInspection(shopId: string, inspectorId: stri
       and coalesce(so.round, 1) = 1 + (select count(*) from weld_inspection i where i.step_id = s.id and i.decision = 'rejected')`;
   const [rows, count] = await Promise.all([
     db().execute<{
-      job_id: string; job_number: string; axle_tag: string; step_id: string; step_title: string; joint_id: string; round: number; ready_at: Date; welder_name: string; mine: boolean; own_weld: boolean; out_of_range: number;
+      job_id: string; job_number: string; axle_tag: string; step_id: string; step_key: string; step_title: string; joint_id: string; round: number; ready_at: Date; welder_name: string; mine: boolean; own_weld: boolean; out_of_range: number;
     }>(sql`
-      select j.id as job_id, j.number as job_number, j.axle_tag, s.id as step_id, s.title as step_title, s.spec->>'jointId' as joint_id,
+      select j.id as job_id, j.number as job_number, j.axle_tag, s.id as step_id, s.step_key, s.title as step_title, s.spec->>'jointId' as joint_id,
         coalesce(so.round, 1) as round, so.signed_at as ready_at, so.printed_name as welder_name,
         exists (select 1 from ${jobAssignment} a where a.job_id = j.id and a.user_id = ${inspectorId} and a.role = 'inspector') as mine,
         exists (select 1 from weld_pass p where p.step_id = s.id and p.welder_id = ${inspectorId}) as own_weld,
@@ -193,6 +195,7 @@ export async function jointsAwaitingInspection(shopId: string, inspectorId: stri
       jobNumber: r.job_number,
       axleTag: r.axle_tag,
       stepId: r.step_id,
+      stepKey: r.step_key,
       stepTitle: r.step_title,
       jointId: r.joint_id,
       round: Number(r.round),

@@ -4,17 +4,37 @@ import { PinStatus } from "@/components/pin-status";
 import { requireShop } from "@/lib/auth/context";
 import { myPinState } from "@/db/queries/me";
 import { holdPointsWaiting, nonconformancesWaiting } from "@/db/queries/jobs";
+import { jointsAwaitingInspection } from "@/db/queries/jobs-welds";
 import Link from "next/link";
 import { DeskJobList } from "../../jobs/_components/desk-list";
+import { WaitingJoints } from "../../inspections/_components/waiting-joints";
+
+const DESK_WELDS = 25;
 
 export const metadata: Metadata = { title: "Inspection desk" };
 
 export default async function InspectorHome() {
   const ctx = await requireShop("inspection:sign");
-  const [pin, holds, ncs] = await Promise.all([myPinState(ctx.shopId, ctx.userId), holdPointsWaiting(ctx.shopId, ctx.userId), nonconformancesWaiting(ctx.shopId, ctx.userId)]);
+  const [pin, holds, ncs, welds] = await Promise.all([
+    myPinState(ctx.shopId, ctx.userId),
+    holdPointsWaiting(ctx.shopId, ctx.userId),
+    nonconformancesWaiting(ctx.shopId, ctx.userId),
+    jointsAwaitingInspection(ctx.shopId, ctx.userId, { limit: DESK_WELDS }),
+  ]);
   return (
     <>
       <PageHeader title="Inspection desk" lead={`Hold points and welds waiting for you at ${ctx.shop.name}.`} />
+      <section className="card mb-4 p-4" aria-labelledby="welds-h">
+        <div className="flex flex-wrap items-baseline justify-between gap-2">
+          <h2 id="welds-h" className="font-bold">
+            Welds waiting for inspection <span className="figures font-semibold text-graphite-700">({welds.total})</span>
+          </h2>
+          {welds.total > DESK_WELDS ? (
+            <Link href="/inspections" className="btn btn-quiet min-h-12" data-testid="welds-more">All {welds.total} waiting →</Link>
+          ) : null}
+        </div>
+        <WaitingJoints joints={welds.rows} empty="No weld is waiting for inspection." />
+      </section>
       <div className="mb-4 grid gap-4 lg:grid-cols-2">
         <section className="card p-4" aria-labelledby="holds-h">
           <h2 id="holds-h" className="font-bold">Hold points waiting</h2>
