@@ -510,7 +510,11 @@ export async function refreshJobState(x: Exec, shopId: string, jobId: string, ac
     where job_id = ${jobId} order by step_id, round desc`);
   const acceptedIds = new Set(accepted.rows.filter((r) => (r as { decision?: string }).decision === "accepted").map((r) => r.step_id));
   const checklist = steps.map((s) => ({ ...s, signed: s.kind === "weld" ? acceptedIds.has(s.id) : s.signedAt !== null }));
-  const next = deriveJobState({ status: current.status, steps: checklist, openNonconformances });
+  const [work] = await x.execute<{ any: boolean }>(
+    sql`select exists (select 1 from ${signOff} where job_id = ${jobId}) or exists (select 1 from ${weldPass} where job_id = ${jobId} and removed_at is null) as any`,
+  ).then((r) => r.rows);
+  const workRecorded = work?.any === true;
+  const next = deriveJobState({ status: current.status, steps: checklist, openNonconformances, workRecorded });
   if (current.status === "released" || current.status === "void") return current.status;
   const signed = checklist.filter((s) => s.signed).length;
   await x
@@ -521,7 +525,7 @@ export async function refreshJobState(x: Exec, shopId: string, jobId: string, ac
       stepsSigned: signed,
       openNonconformances,
       updatedAt: new Date(),
-      ...(signed > 0 && !current.startedAt ? { startedAt: new Date() } : {}),
+      ...((signed > 0 || workRecorded) && !current.startedAt ? { startedAt: new Date() } : {}),
     })
     .where(and(eq(job.id, jobId), eq(job.shopId, shopId)));
   if (next !== current.status) {

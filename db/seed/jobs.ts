@@ -511,6 +511,7 @@ export async function seedJobs(db: SeedDb, shopId: string, people: readonly Pers
       status: "planned",
       steps: steps.map(({ step }, i) => ({ id: step.key, key: step.key, title: step.title, kind: step.kind, position: i + 1, sectionKey: "", signed: signedKeys.has(step.key) })),
       openNonconformances: plan.nc ? 1 : 0,
+      workRecorded: signedKeys.size > 0,
     });
     const released = plan.release ? { status: "released" as const, releasedAt: new Date(Math.min(at, now - 30_000)), releasedBy: lead.id } : { status };
     await db

@@ -23,14 +23,18 @@ export function waitingHold<S extends ChecklistStep>(steps: readonly S[]): S | n
   return first && first.kind === "hold" ? first : null;
 }
 
-export function deriveJobState(input: { status: JobStateName; steps: readonly ChecklistStep[]; openNonconformances: number }): JobStateName {
+/**
+ * `workRecorded`: something is on the record though no step counts as done yet (a weld pass, a signed weld
+ * round waiting for inspection, a rejected round in repair): the job has started.
+ */
+export function deriveJobState(input: { status: JobStateName; steps: readonly ChecklistStep[]; openNonconformances: number; workRecorded?: boolean }): JobStateName {
   const { status, steps, openNonconformances } = input;
   if (status === "released" || status === "void") return status;
   const signed = steps.filter((s) => s.signed).length;
   if (openNonconformances > 0) return "on_hold";
   if (steps.length > 0 && signed === steps.length) return "ready_for_release";
   if (waitingHold(steps)) return "on_hold";
-  return signed > 0 ? "in_progress" : "planned";
+  return signed > 0 || input.workRecorded ? "in_progress" : "planned";
 }
 
 /** Steps before a hold point that are still unsigned: an inspector signs a hold only after all of them. */

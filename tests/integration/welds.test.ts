@@ -91,6 +91,8 @@ describe("weld passes against the WPS and the welder's qualification", () => {
     expect(r.status, r.text).toBe(201);
     const p = r.json.record.passes[0];
     expect(p).toMatchObject({ round: 1, position: "2F", outOfRange: false, wps: { reference: "GUS-GMAW-02", number: 1 }, heatInputMethod: "voltage-current" });
+    // Nothing counts as done yet, but work is on the record: the job has started.
+    expect(r.json.record.job.status).toBe("in_progress");
     // ASME IX QW-409.1(a): 19 V × 140 A × 60 / (300 mm/min ÷ 25.4) = 13,513 J/in; arc energy 0.532 kJ/mm.
     expect(p.jPerIn).toBeCloseTo(13_513, 0);
     expect(p.arcEnergyKJPerMm).toBeCloseTo(0.532, 3);

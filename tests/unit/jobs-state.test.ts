@@ -100,3 +100,12 @@ describe("release", () => {
     expect(releaseBlockers({ status: "ready_for_release", steps: done, openNonconformances: 0, releaserId: "ivy", holdSigners: [{ stepId: "s2", userId: "ivy" }] })[0]).toMatch(/another lead/);
   });
 });
+
+describe("a job with weld work recorded", () => {
+  it("is in progress once a pass or a weld round is on the record, though no step counts as done yet", () => {
+    const derive = deriveJobState;
+    const steps = [{ id: "w", key: "w", title: "W1", kind: "weld" as const, position: 1, sectionKey: "s", signed: false }];
+    expect(derive({ status: "planned", steps, openNonconformances: 0 })).toBe("planned");
+    expect(derive({ status: "planned", steps, openNonconformances: 0, workRecorded: true })).toBe("in_progress");
+  });
+});
