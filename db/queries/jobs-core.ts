@@ -511,7 +511,7 @@ export async function refreshJobState(x: Exec, shopId: string, jobId: string, ac
   const acceptedIds = new Set(accepted.rows.filter((r) => (r as { decision?: string }).decision === "accepted").map((r) => r.step_id));
   const checklist = steps.map((s) => ({ ...s, signed: s.kind === "weld" ? acceptedIds.has(s.id) : s.signedAt !== null }));
   const [work] = await x.execute<{ any: boolean }>(
-    sql`select exists (select 1 from ${signOff} where job_id = ${jobId}) or exists (select 1 from ${weldPass} where job_id = ${jobId} and removed_at is null) as any`,
+    sql`select exists (select 1 from ${signOff} where job_id = ${jobId} and round is not null) or exists (select 1 from ${weldPass} where job_id = ${jobId} and removed_at is null) as any`,
   ).then((r) => r.rows);
   const workRecorded = work?.any === true;
   const next = deriveJobState({ status: current.status, steps: checklist, openNonconformances, workRecorded });

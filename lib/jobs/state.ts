@@ -24,8 +24,8 @@ export function waitingHold<S extends ChecklistStep>(steps: readonly S[]): S | n
 }
 
 /**
- * `workRecorded`: something is on the record though no step counts as done yet (a weld pass, a signed weld
- * round waiting for inspection, a rejected round in repair): the job has started.
+ * `workRecorded`: weld work is on the record though no step counts as done yet (a pass, a signed round waiting
+ * for inspection, a rejected round in repair): the job has started.
  */
 export function deriveJobState(input: { status: JobStateName; steps: readonly ChecklistStep[]; openNonconformances: number; workRecorded?: boolean }): JobStateName {
   const { status, steps, openNonconformances } = input;
