@@ -86,6 +86,8 @@ type Plan = {
   nc?: { stepKey: string; value: Record<string, unknown>; description: string; proposed: "rework" | "repair" | "use_as_is" | "scrap" };
   /** a weld joint rejected at its first inspection (undercut), repaired in round 2 and accepted */
   repair?: { stepKey: string; undercutDepthMm: number; notes: string };
+  /** weld joints worked on but not accepted: one signed round waiting for the inspector, or one rejected */
+  openJoints?: { stepKey: string; state: "awaiting_inspection" | "repair" }[];
   materials?: { kind: "base" | "filler" | "other"; description: string; specification: string; heatNumber: string; certificate: string }[];
 };
 
@@ -131,6 +133,22 @@ const PLANS: Plan[] = [
     dueInDays: 5,
     createdDaysAgo: 1,
     notes: "Lift of 50 mm; customer wants the old bracket kept for the insurer.",
+  },
+  {
+    tag: "AX-0621",
+    procedureTitle: "Fitting and welding a weld-in lateral-link bracket at ride height",
+    customer: { name: "Saltbush Plains Grazing", phone: "+61 8 5550 0621", email: "sheds@saltbushplains.example" },
+    vehicle: { year: 2010, makeModel: "mid-size pickup, space cab", vin: vin("ZZGMP27F?AK600621") },
+    axle: "Front solid axle housing, lateral link bracket",
+    dueInDays: 3,
+    createdDaysAgo: 2,
+    notes: "W2 is signed and waits for the inspector; W3 was sent back for repair.",
+    sign: { until: "fit-weld-w2" },
+    openJoints: [
+      { stepKey: "fit-weld-w2", state: "awaiting_inspection" },
+      { stepKey: "fit-weld-w3", state: "repair" },
+    ],
+    materials: BRACKET_MATERIALS.map((m) => (m.kind === "base" ? { ...m, heatNumber: "HT 7731-0618" } : m)),
   },
   {
     tag: "AX-0987",
@@ -435,7 +453,8 @@ export async function seedJobs(db: SeedDb, shopId: string, people: readonly Pers
       return { decision, signOffId: so.id };
     };
 
-    for (const key of toSign) {
+    // Joints left open in the demo (waiting for the inspector, or sent back for repair) come after the signed steps.
+    for (const key of [...toSign, ...(plan.openJoints ?? []).map((j) => j.stepKey)]) {
       const { step } = steps.find((s) => s.step.key === key)!;
       const stepId = stepRows.find((r) => r.key === key)!.id;
       const signer = step.signedBy === "lead" ? lead : step.kind === "hold" || step.signedBy === "inspector" ? inspectorUser : welderUser;
@@ -453,22 +472,23 @@ export async function seedJobs(db: SeedDb, shopId: string, people: readonly Pers
       if (step.kind === "weld") {
         const stepWps = await publishedWps(db, shopId, step.wpsRef);
         if (!stepWps) throw new Error(`seed: joint ${step.jointId} names ${step.wpsRef}, which the shop has not published`);
+        // How each round ends: accepted; rejected (then a repair round); or still waiting for the inspector.
+        const open = plan.openJoints?.find((j) => j.stepKey === key);
         const repair = plan.repair?.stepKey === key ? plan.repair : null;
-        let round = 1;
-        let passNumber = 1;
+        const outcomes: ("accepted" | "rejected" | "pending")[] = open ? [open.state === "awaiting_inspection" ? "pending" : "rejected"] : repair ? ["rejected", "accepted"] : ["accepted"];
+        const found = open?.state === "repair" ? { undercutDepthMm: 1.4, notes: "Craters left unfilled at both ends and undercut on the tube side. Grind back and reweld the ends." } : repair;
         let repairOf: string | null = null;
         let when = signedAt.getTime();
-        for (;;) {
-          const pass = await seedPass(db, { shopId, jobId, stepId, welderId: welderUser.id, step, wps: stepWps, passNumber, round, at: new Date(when - 600_000) });
+        for (const [i, outcome] of outcomes.entries()) {
+          const round = i + 1;
+          const pass = await seedPass(db, { shopId, jobId, stepId, welderId: welderUser.id, step, wps: stepWps, passNumber: round, round, at: new Date(when - 600_000) });
           const { content, hash } = stepContentHash({ jobId, jobNumber: number, stepId, stepKey: key, kind: step.kind, specHash: contentHash(step), meaning, value, photos: round === 1 ? stepPhotos : [], passes: [pass], acceptedUnder: [], round: { number: round, repairOf } });
           const performed = await append({ stepId, signer: welderUser, role: "welder", meaning: "performed", signedAt: new Date(when), content, hash, round });
           await db.insert(jobActivity).values({ shopId, jobId, actorId: welderUser.id, action: "step.signed", stepId, detail: { signOffId: performed.id, meaning, role: "welder", contentHash: hash, acceptedUnder: [], round }, at: new Date(when) });
-          const rejectNow = repair !== null && round === 1;
-          const result = await inspect({ step, stepId, key, round, performedId: performed.id, passes: [pass], undercutDepthMm: rejectNow ? repair.undercutDepthMm : 0.3, notes: rejectNow ? repair.notes : "", at: new Date(when + 1_200_000) });
-          if (result.decision === "accepted") break;
+          if (outcome === "pending") break;
+          const rejectNow = outcome === "rejected" && found !== null;
+          const result = await inspect({ step, stepId, key, round, performedId: performed.id, passes: [pass], undercutDepthMm: rejectNow ? found.undercutDepthMm : 0.3, notes: rejectNow ? found.notes : "", at: new Date(Math.min(when + 1_200_000, now - 120_000)) });
           repairOf = result.signOffId;
-          round += 1;
-          passNumber += 1;
           when += 3_600_000;
           at += 3_600_000;
         }
