@@ -6,7 +6,7 @@ import drizzle from "eslint-plugin-drizzle";
 export default defineConfig([
   ...nextVitals,
   ...nextTs,
-  globalIgnores([".next/**", ".next-test*/**", ".data/**", "node_modules/**", "next-env.d.ts", "test-results/**", "playwright-report/**", "db/migrations/**"]),
+  globalIgnores([".next/**", ".next*/**", ".data/**", "node_modules/**", "next-env.d.ts", "test-results/**", "playwright-report/**", "db/migrations/**"]),
   {
     plugins: { drizzle },
     rules: {
