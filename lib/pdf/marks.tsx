@@ -50,7 +50,7 @@ export function Mark({ shape, color = COLOR.ink, size = 7 }: { shape: MarkShape;
   }
 }
 
-export type VerdictKind = "pass" | "fail" | "na" | "within" | "over" | "accept" | "reject" | "open" | "signed" | "warn";
+export type VerdictKind = "pass" | "fail" | "na" | "within" | "over" | "accept" | "reject" | "open" | "signed" | "warn" | "waiting" | "withdrawn";
 
 const VERDICTS: Record<VerdictKind, { shape: MarkShape; color: string; word: string }> = {
   pass: { shape: "dot", color: COLOR.pass, word: "pass" },
@@ -63,6 +63,8 @@ const VERDICTS: Record<VerdictKind, { shape: MarkShape; color: string; word: str
   open: { shape: "ring", color: COLOR.muted, word: "open" },
   signed: { shape: "dot", color: COLOR.ink, word: "signed" },
   warn: { shape: "triangle", color: COLOR.warn, word: "check" },
+  waiting: { shape: "square", color: COLOR.ink2, word: "waiting" },
+  withdrawn: { shape: "cross", color: COLOR.muted, word: "withdrawn" },
 };
 
 /** A shape and its word, e.g. a filled dot and "pass". */

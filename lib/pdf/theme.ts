@@ -118,6 +118,8 @@ export const s = StyleSheet.create({
   th: { flexDirection: "row", borderBottomWidth: 0.75, borderBottomColor: COLOR.ink, paddingVertical: 3 },
   tr: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: COLOR.ruleStrong, paddingVertical: 3.5 },
   cell: { paddingRight: 5 },
+  round: { marginTop: 3, marginLeft: 12, paddingLeft: 6, borderLeftWidth: 1.5, borderLeftColor: COLOR.ruleStrong },
+  roundHead: { fontSize: 7.5, fontWeight: 700, marginBottom: 0.5 },
 
 
   safety: { flexDirection: "row", borderWidth: 1.25, borderColor: COLOR.ink, padding: 10, marginTop: 16 },

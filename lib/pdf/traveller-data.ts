@@ -36,6 +36,8 @@ export const signOffSchema = z
     role: required(40, "The role"),
     meaning: z.enum(SIGN_OFF_MEANINGS),
     signedAt: instant,
+    /** weld joints: the round the sign-off belongs to (the first welding, then each repair) */
+    round: z.number().int().min(1).max(99).optional(),
     /** set when this sign-off corrects an earlier one: signed records are never changed, only amended */
     amends: z.object({ signOffId: required(100, "The amended sign-off id"), reason: required(1000, "The reason") }).strict().optional(),
   })
@@ -95,11 +97,64 @@ export const geometryCaptureSchema = z
   })
   .strict();
 
+export const JOINT_STATES = ["welding", "awaiting_inspection", "repair", "accepted"] as const;
+export type TravellerJointState = (typeof JOINT_STATES)[number];
+
+/** One pass of a joint as welded: who, to which WPS revision, and its heat input judged against that WPS. */
+export const weldPassSchema = z
+  .object({
+    passNumber: z.number().int().min(1).max(999),
+    welderName: required(120, "The welder's name"),
+    wpsRef: required(60, "The WPS reference"),
+    /** the published WPS revision the pass was checked against; null when none was published */
+    wpsRevision: z.number().int().min(1).nullable().default(null),
+    /** the value the WPS limits: arc energy, or ISO/TR 17671-1 Q when the WPS states its limit that way */
+    heatInputKJPerMm: finite,
+    heatInputMaxKJPerMm: finite.optional(),
+    /** "na" when the WPS sets no heat-input limit (or none was published) */
+    heatInputVerdict: z.enum(["within", "over", "na"]),
+    /** the WPS check's other out-of-range findings, in words ("Current 260 A is above the WPS maximum of 240 A.") */
+    outOfRange: z.array(text(300)).max(20).default([]),
+    /** a lead's acceptance of an out-of-range pass */
+    override: z.object({ reason: required(1000, "The override reason"), by: required(120, "Who overrode"), at: instant }).strict().optional(),
+    /** struck out by its welder: kept on the record, not part of the weld */
+    struckOut: z.boolean().default(false),
+  })
+  .strict();
+
+export type TravellerWeldPassInput = z.input<typeof weldPassSchema>;
+
+/** The visual inspection closing a round: the decision, who made it and when, and what it was judged by. */
+export const weldInspectionSchema = z
+  .object({
+    round: z.number().int().min(1).max(99),
+    result: z.enum(["accept", "reject"]),
+    inspectorName: required(120, "The inspector's name"),
+    at: instant,
+    /** the acceptance criteria in words, e.g. "AWS D1.1:2020 Table 8.1, statically loaded nontubular" */
+    criteria: text(160).default(""),
+    /** the items that failed the criteria, measured against the limit */
+    rejected: z.array(z.object({ item: required(60, "The item"), measured: text(300), limit: text(300) }).strict()).max(20).default([]),
+    note: text(1000).default(""),
+  })
+  .strict();
+
+export const weldRoundSchema = z
+  .object({
+    round: z.number().int().min(1).max(99),
+    passes: z.array(weldPassSchema).max(200).default([]),
+    /** null while the round waits for its inspection */
+    inspection: weldInspectionSchema.nullable().default(null),
+  })
+  .strict();
+
 export const weldRowSchema = z
   .object({
     jointId: required(40, "A joint id"),
     /** where the joint is, e.g. "lateral link bracket to tube, front fillet" */
     location: text(200).default(""),
+    /** where the joint stands; derived from the last round when left out */
+    state: z.enum(JOINT_STATES).optional(),
     welderName: required(120, "The welder's name"),
     wpsRef: required(60, "The WPS reference"),
     process: text(40).default(""),
@@ -112,21 +167,19 @@ export const weldRowSchema = z
     heatInputMaxKJPerMm: finite.optional(),
     /** "na" when no published WPS limit was found for the reference */
     heatInputVerdict: z.enum(["within", "over", "na"]),
-    inspections: z
-      .array(
-        z
-          .object({
-            result: z.enum(["accept", "reject"]),
-            inspectorName: required(120, "The inspector's name"),
-            at: instant,
-            note: text(500).default(""),
-          })
-          .strict(),
-      )
-      .max(20)
-      .default([]),
+    /** the first welding, then one round per repair after a rejection, in order */
+    rounds: z.array(weldRoundSchema).max(20).default([]),
   })
-  .strict();
+  .strict()
+  .superRefine((w, ctx) => {
+    w.rounds.forEach((r, i) => {
+      if (r.round !== i + 1) ctx.addIssue({ code: "custom", path: ["rounds", i, "round"], message: "Rounds are numbered 1, 2, 3 … in order." });
+      if (r.inspection && r.inspection.round !== r.round) ctx.addIssue({ code: "custom", path: ["rounds", i, "inspection", "round"], message: "An inspection belongs to its own round." });
+      if (i < w.rounds.length - 1 && r.inspection?.result !== "reject") {
+        ctx.addIssue({ code: "custom", path: ["rounds", i, "inspection"], message: "Only a rejected round is followed by a repair round." });
+      }
+    });
+  });
 
 export const nonconformanceSchema = z
   .object({
@@ -146,6 +199,26 @@ export const nonconformanceSchema = z
     message: "A disposition needs who decided it and when.",
     path: ["dispositionedBy"],
   });
+
+export const MATERIAL_KINDS = ["base", "filler", "other"] as const;
+
+/** One material entry (ISO 3834-2 traceability): what went into the job, by heat or lot number. */
+export const materialEntrySchema = z
+  .object({
+    kind: z.enum(MATERIAL_KINDS),
+    description: required(200, "The description"),
+    specification: text(120).default(""),
+    heatNumber: required(60, "The heat or lot number"),
+    certificate: text(120).default(""),
+    /** no longer used on the job: printed as withdrawn, with the reason */
+    withdrawn: z.boolean().default(false),
+    /** set when this entry corrects (or withdraws) an earlier one */
+    reason: text(1000).default(""),
+    corrects: z.boolean().default(false),
+    recordedBy: text(120).default(""),
+    recordedAt: instant.optional(),
+  })
+  .strict();
 
 const JPEG = [0xff, 0xd8, 0xff];
 const PNG = [0x89, 0x50, 0x4e, 0x47];
@@ -215,11 +288,13 @@ export const travellerDataSchema = z
     nonconformances: z.array(nonconformanceSchema).max(500).default([]),
     materials: z
       .object({
-        parts: z.array(z.object({ item: required(120, "The item"), spec: text(120), heatNumber: required(60, "The heat number") }).strict()).max(100).default([]),
-        fillers: z.array(z.object({ classification: required(80, "The classification"), diameterMm: finite.positive().optional(), lot: required(60, "The lot") }).strict()).max(100).default([]),
+        /** the job's material entries as they stand (corrected ones replaced by their correction) */
+        entries: z.array(materialEntrySchema).max(200).default([]),
+        /** filler lots as logged on the weld passes, for checking against the entries */
+        fillers: z.array(z.object({ classification: text(80), diameterMm: finite.positive().optional(), lot: required(60, "The lot"), joints: z.array(text(40)).max(100).default([]) }).strict()).max(100).default([]),
       })
       .strict()
-      .default({ parts: [], fillers: [] }),
+      .default({ entries: [], fillers: [] }),
     photos: z.array(photoSchema).max(200).default([]),
     paper: z.enum(PAPER_SIZES).default("a4"),
     /** IANA zone the times print in, e.g. "Europe/Berlin"; the offset is printed beside each time */

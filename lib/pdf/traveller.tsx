@@ -7,10 +7,10 @@ import { SAFETY_NOTE } from "@/components/safety-note";
 import { registerTravellerFonts } from "./fonts";
 import { formatInstant, formatNumber, printableLines, formatSigned, groupHex, printable, sealShort, wrapUrl } from "./format";
 import { GeometryDiagrams } from "./geometry-diagram";
-import { Mark, Verdict, type MarkShape } from "./marks";
+import { Mark, Verdict, type MarkShape, type VerdictKind } from "./marks";
 import { makeQr, type TravellerQr } from "./qr";
 import { COLOR, MARGIN, s } from "./theme";
-import { parseTravellerData, type TravellerData, type TravellerRecord, type TravellerJobState, type TravellerStepKind } from "./traveller-data";
+import { parseTravellerData, type TravellerData, type TravellerJointState, type TravellerRecord, type TravellerJobState, type TravellerStepKind } from "./traveller-data";
 
 export const HAZARD_LINE = "Hot work, fumes, cutting and grinding, coatings and steering components can hurt people.";
 export const WIP_TITLE = "WORK IN PROGRESS \u2022 NOT RELEASED";
@@ -242,14 +242,14 @@ function Stat({ label, value, sub, last = false }: { label: string; value: strin
   );
 }
 
-type Person = { name: string; roles: Set<string>; meanings: Map<string, number>; welded: string[]; inspected: number; ncs: number };
+type Person = { name: string; roles: Set<string>; meanings: Map<string, number>; welded: string[]; inspected: number; overrides: number; ncs: number };
 
 /** Everyone whose name is on the record, with what they signed: a signature manifest for the auditor. */
 function People({ c }: { c: Ctx }) {
   const people = new Map<string, Person>();
   const get = (name: string) => {
     let p = people.get(name);
-    if (!p) people.set(name, (p = { name, roles: new Set(), meanings: new Map(), welded: [], inspected: 0, ncs: 0 }));
+    if (!p) people.set(name, (p = { name, roles: new Set(), meanings: new Map(), welded: [], inspected: 0, overrides: 0, ncs: 0 }));
     return p;
   };
   for (const sec of c.d.sections)
@@ -260,8 +260,12 @@ function People({ c }: { c: Ctx }) {
         p.meanings.set(so.meaning, (p.meanings.get(so.meaning) ?? 0) + 1);
       }
   for (const w of c.d.welds) {
-    get(w.welderName).welded.push(w.jointId);
-    for (const r of w.inspections) get(r.inspectorName).inspected++;
+    const welders = new Set(w.rounds.flatMap((r) => r.passes.filter((p) => !p.struckOut).map((p) => p.welderName)));
+    for (const name of welders) get(name).welded.push(w.jointId);
+    for (const r of w.rounds) {
+      if (r.inspection) get(r.inspection.inspectorName).inspected++;
+      for (const p of r.passes) if (p.override) get(p.override.by).overrides++;
+    }
   }
   for (const n of c.d.nonconformances) {
     if (n.raisedBy) get(n.raisedBy).ncs++;
@@ -292,6 +296,7 @@ function People({ c }: { c: Ctx }) {
           const also = [
             p.welded.length ? `welded ${p.welded.join(", ")}` : "",
             p.inspected ? `${p.inspected} weld inspection${p.inspected === 1 ? "" : "s"}` : "",
+            p.overrides ? `${p.overrides} pass override${p.overrides === 1 ? "" : "s"}` : "",
             p.ncs ? `${p.ncs} nonconformance entr${p.ncs === 1 ? "y" : "ies"}` : "",
           ].filter(Boolean);
           return (
@@ -320,7 +325,7 @@ function RecordPage({ c }: { c: Ctx }) {
   const { d } = c;
   const steps = d.sections.flatMap((x) => x.steps);
   const signed = steps.filter((st) => st.signOffs.length > 0).length;
-  const accepted = d.welds.filter((w) => w.inspections.at(-1)?.result === "accept").length;
+  const accepted = d.welds.filter((w) => jointStateOf(w) === "accepted").length;
   const open = d.nonconformances.filter((n) => n.disposition === null).length;
   const vehicle = [d.vehicle.year ?? "", d.vehicle.makeModel].filter((x) => x !== "").join(" ");
   return (
@@ -384,7 +389,7 @@ function RecordPage({ c }: { c: Ctx }) {
 
       <View style={s.stats}>
         <Stat label="Steps signed" value={`${signed} / ${steps.length}`} sub={`${d.sections.length} sections`} />
-        <Stat label="Weld joints" value={String(d.welds.length)} sub={`${accepted} accepted at last inspection`} />
+        <Stat label="Weld joints" value={String(d.welds.length)} sub={`${accepted} accepted at their last inspection`} />
         <Stat label="Nonconformances" value={String(d.nonconformances.length)} sub={open === 0 ? "none open" : `${open} open`} />
         <Stat label="Photos" value={String(d.photos.length)} sub="contact sheet at the end" last />
       </View>
@@ -430,6 +435,7 @@ function SignOffLine({ c, so }: { c: Ctx; so: StepRec["signOffs"][number] }) {
       <Text style={s.bold}>{MEANING_WORD[so.meaning]}</Text>
       {"  "}
       {P(so.printedName)} {"\u00b7"} {P(cap(so.role))} {"\u00b7"} <Text style={[s.mono, s.small]}>{when(c, so.signedAt)}</Text>
+      {so.round === undefined ? null : <Text style={s.small}>{` \u00b7 round ${so.round}`}</Text>}
       {later ? <Text style={[s.small, s.muted]}>{`   amended by ${later.join(", ")}`}</Text> : null}
     </Text>
   );
@@ -606,67 +612,160 @@ function GeometrySection({ c, first = false }: { c: Ctx; first?: boolean }) {
 
 // ───────────────────────────── welds ─────────────────────────────
 
+type WeldRec = TravellerRecord["welds"][number];
+type RoundRec = WeldRec["rounds"][number];
+
+const JOINT_LOOK: Record<TravellerJointState, { word: string; kind: VerdictKind }> = {
+  welding: { word: "welding", kind: "open" },
+  awaiting_inspection: { word: "waiting for inspection", kind: "waiting" },
+  repair: { word: "in repair", kind: "warn" },
+  accepted: { word: "accepted", kind: "accept" },
+};
+
+/** Where a joint stands, as the caller said or as its last round shows. */
+export function jointStateOf(w: Pick<WeldRec, "state" | "rounds">): TravellerJointState {
+  if (w.state) return w.state;
+  const last = w.rounds.at(-1);
+  if (!last) return "welding";
+  if (last.inspection?.result === "accept") return "accepted";
+  if (last.inspection?.result === "reject") return "repair";
+  return last.passes.length ? "awaiting_inspection" : last.round > 1 ? "repair" : "welding";
+}
+
+const WELD_COLS: Col[] = [
+  { title: "Joint", flex: 1.2 },
+  { title: "Welder", flex: 1.15 },
+  { title: "WPS", flex: 1.1 },
+  { title: "Filler / lot", flex: 1.2 },
+  { title: "Preheat \u00b0C", flex: 0.7, align: "right" },
+  { title: "Heat input kJ/mm", flex: 0.85, align: "right" },
+  { title: "Against WPS", flex: 0.85 },
+  { title: "Joint state", flex: 1.15 },
+];
+
+// The passes and the inspection of one round, indented under the joint: one paragraph per pass (nested
+// spans cost no layout) with its heat input and verdict beside it.
+function RoundBlock({ c, r }: { c: Ctx; r: RoundRec }) {
+  const i = r.inspection;
+  return (
+    <View style={s.round}>
+      <Text style={s.roundHead}>
+        {`Round ${r.round}`}
+        <Text style={[s.muted, { fontWeight: 400 }]}>{r.round > 1 ? "  repair after rejection" : "  first welding"}</Text>
+      </Text>
+      {r.passes.length === 0 ? <Text style={[s.tiny, s.muted]}>No passes recorded in this round.</Text> : null}
+      {r.passes.map((p) => (
+        <View key={p.passNumber}>
+          <View style={[s.row, { alignItems: "center" }]}>
+            <Text style={[s.small, { flex: 1 }, p.struckOut ? { color: COLOR.muted } : {}]}>
+              <Text style={[s.mono, s.bold]}>{`Pass ${p.passNumber}  `}</Text>
+              {P(p.welderName)} {"\u00b7"} <Text style={s.mono}>{P(p.wpsRef)}</Text>
+              {p.wpsRevision === null ? " (no published revision)" : ` rev ${p.wpsRevision}`}
+            </Text>
+            <Text style={[s.mono, s.small, { width: 160, textAlign: "right", paddingRight: 6 }]}>
+              {`heat input ${formatNumber(p.heatInputKJPerMm, 2)} kJ/mm${p.heatInputMaxKJPerMm === undefined ? "" : ` (max ${formatNumber(p.heatInputMaxKJPerMm, 2)})`}`}
+            </Text>
+            <View style={{ width: 78 }}>
+              {p.struckOut ? <Verdict kind="na" word="struck out" /> : <Verdict kind={p.heatInputVerdict} word={p.heatInputVerdict === "na" ? "no WPS limit" : undefined} />}
+            </View>
+          </View>
+          {p.outOfRange.map((m, k) => (
+            <Text key={k} style={[s.tiny, { marginLeft: 34, color: COLOR.fail }]}>
+              {`Outside the WPS: ${P(m)}`}
+            </Text>
+          ))}
+          {p.override ? (
+            <Text style={[s.tiny, { marginLeft: 34, color: COLOR.ink2 }]}>
+              <Text style={s.bold}>Accepted by lead override</Text> {P(p.override.by)} {"\u00b7"} <Text style={s.mono}>{when(c, p.override.at)}</Text>: {P(p.override.reason)}
+            </Text>
+          ) : null}
+        </View>
+      ))}
+      {i ? (
+        <View style={{ marginTop: 1.5 }}>
+          <View style={[s.row, { alignItems: "center" }]}>
+            <Text style={[s.small, s.bold, { marginRight: 4 }]}>{`Inspection round ${i.round}`}</Text>
+            <Verdict kind={i.result} />
+            <Text style={[s.small, { marginLeft: 4, flex: 1 }]}>
+              {P(i.inspectorName)} {"\u00b7"} <Text style={s.mono}>{when(c, i.at)}</Text>
+              {i.criteria ? <Text style={s.muted}>{` \u00b7 ${P(i.criteria)}`}</Text> : null}
+            </Text>
+          </View>
+          {i.rejected.map((x, k) => (
+            <Text key={k} style={[s.tiny, { marginLeft: 34, color: COLOR.ink2 }]}>
+              <Text style={[s.bold, { color: COLOR.fail }]}>{`${cap(P(x.item))}: `}</Text>
+              {`measured ${P(x.measured)}; limit ${P(x.limit)}`}
+            </Text>
+          ))}
+          {i.note ? <Para style={[s.tiny, { marginLeft: 34, color: COLOR.body }]} text={`Notes: ${i.note}`} /> : null}
+        </View>
+      ) : (
+        <View style={[s.row, { alignItems: "center", marginTop: 1.5 }]}>
+          <Text style={[s.small, s.bold, { marginRight: 4 }]}>{`Inspection round ${r.round}`}</Text>
+          <Verdict kind="open" word="not inspected yet" />
+        </View>
+      )}
+    </View>
+  );
+}
+
+function WeldRow({ c, w }: { c: Ctx; w: WeldRec }) {
+  const look = JOINT_LOOK[jointStateOf(w)];
+  const passCount = w.rounds.reduce((n, r) => n + r.passes.length, 0);
+  // A joint with a long pass list may break across pages; a normal one stays whole.
+  return (
+    <View style={s.tr} wrap={passCount > 24}>
+      <View style={{ flex: 1 }}>
+        <View style={s.row}>
+          <Cell flex={1.2}>
+            <Text style={[s.mono, s.bold]}>{P(w.jointId)}</Text>
+            {w.location ? <Text style={[s.tiny, { color: COLOR.body }]}>{P(w.location)}</Text> : null}
+          </Cell>
+          <Cell flex={1.15}>
+            <Text>{P(w.welderName)}</Text>
+            {w.process || w.passes !== undefined ? (
+              <Text style={[s.tiny, s.muted]}>{[P(w.process), w.passes === undefined ? "" : `${w.passes} pass${w.passes === 1 ? "" : "es"}`].filter(Boolean).join(" \u00b7 ")}</Text>
+            ) : null}
+          </Cell>
+          <Cell flex={1.1}>
+            <Text style={[s.mono, s.small]}>{P(w.wpsRef)}</Text>
+          </Cell>
+          <Cell flex={1.2}>
+            <Text>{P(w.filler)}</Text>
+            <Text style={[s.mono, s.tiny, { color: COLOR.body }]}>lot {P(w.fillerLot)}</Text>
+          </Cell>
+          <Cell flex={0.7} align="right">
+            <Text style={s.mono}>{w.preheatC === null ? "\u2014" : formatNumber(w.preheatC, 0)}</Text>
+          </Cell>
+          <Cell flex={0.85} align="right">
+            <Text style={[s.mono, s.bold]}>{formatNumber(w.heatInputKJPerMm, 2)}</Text>
+            {w.heatInputMaxKJPerMm !== undefined ? <Text style={[s.mono, s.tiny, s.muted]}>max {formatNumber(w.heatInputMaxKJPerMm, 2)}</Text> : null}
+          </Cell>
+          <Cell flex={0.85}>
+            <Verdict kind={w.heatInputVerdict} word={w.heatInputVerdict === "na" ? "no WPS limit" : w.heatInputVerdict} />
+          </Cell>
+          <Cell flex={1.15}>
+            <Verdict kind={look.kind} word={look.word} />
+            <Text style={[s.tiny, s.muted]}>{`${w.rounds.length} round${w.rounds.length === 1 ? "" : "s"}`}</Text>
+          </Cell>
+        </View>
+        {w.rounds.map((r) => (
+          <RoundBlock key={r.round} c={c} r={r} />
+        ))}
+      </View>
+    </View>
+  );
+}
+
 function WeldSection({ c }: { c: Ctx }) {
-  const cols: Col[] = [
-    { title: "Joint", flex: 1.2 },
-    { title: "Welder", flex: 1.15 },
-    { title: "WPS", flex: 1.1 },
-    { title: "Filler / lot", flex: 1.2 },
-    { title: "Preheat \u00b0C", flex: 0.7, align: "right" },
-    { title: "Heat input kJ/mm", flex: 0.85, align: "right" },
-    { title: "Against WPS", flex: 0.85 },
-    { title: "Visual inspection", flex: 2.05 },
-  ];
   return (
     <KeptTable
       head={<SectionHead n={4} title="Welds and inspection" />}
-      cols={cols}
+      cols={WELD_COLS}
       empty="No weld joints recorded on this job."
       rows={c.d.welds.map((w) => (
-            <View key={w.jointId} style={s.tr} wrap={false}>
-              <Cell flex={1.2}>
-                <Text style={[s.mono, s.bold]}>{P(w.jointId)}</Text>
-                {w.location ? <Text style={[s.tiny, { color: COLOR.body }]}>{P(w.location)}</Text> : null}
-              </Cell>
-              <Cell flex={1.15}>
-                <Text>{P(w.welderName)}</Text>
-                {w.process || w.passes !== undefined ? (
-                  <Text style={[s.tiny, s.muted]}>{[P(w.process), w.passes === undefined ? "" : `${w.passes} pass${w.passes === 1 ? "" : "es"}`].filter(Boolean).join(" \u00b7 ")}</Text>
-                ) : null}
-              </Cell>
-              <Cell flex={1.1}>
-                <Text style={[s.mono, s.small]}>{P(w.wpsRef)}</Text>
-              </Cell>
-              <Cell flex={1.2}>
-                <Text>{P(w.filler)}</Text>
-                <Text style={[s.mono, s.tiny, { color: COLOR.body }]}>lot {P(w.fillerLot)}</Text>
-              </Cell>
-              <Cell flex={0.7} align="right">
-                <Text style={s.mono}>{w.preheatC === null ? "\u2014" : formatNumber(w.preheatC, 0)}</Text>
-              </Cell>
-              <Cell flex={0.85} align="right">
-                <Text style={[s.mono, s.bold]}>{formatNumber(w.heatInputKJPerMm, 2)}</Text>
-                {w.heatInputMaxKJPerMm !== undefined ? <Text style={[s.mono, s.tiny, s.muted]}>max {formatNumber(w.heatInputMaxKJPerMm, 2)}</Text> : null}
-              </Cell>
-              <Cell flex={0.85}>
-                <Verdict kind={w.heatInputVerdict} word={w.heatInputVerdict === "na" ? "no WPS limit" : w.heatInputVerdict} />
-              </Cell>
-              <Cell flex={2.05}>
-                {w.inspections.length === 0 ? <Verdict kind="open" word="not inspected" /> : null}
-                {w.inspections.map((r, i) => (
-                  <View key={i} style={{ marginBottom: 1.5 }}>
-                    <View style={[s.row, { alignItems: "center" }]}>
-                      <Text style={[s.mono, s.tiny, { width: 12, color: COLOR.muted }]}>{i + 1}</Text>
-                      <Verdict kind={r.result} />
-                      <Text style={[s.small, { marginLeft: 4 }]}>{P(r.inspectorName)}</Text>
-                    </View>
-                    <Text style={[s.mono, s.tiny, { marginLeft: 12, color: COLOR.body }]}>{when(c, r.at)}</Text>
-                    {r.note ? <Para style={[s.tiny, { marginLeft: 12, color: COLOR.body }]} text={r.note} /> : null}
-                  </View>
-                ))}
-              </Cell>
-            </View>
-          ))}
+        <WeldRow key={w.jointId} c={c} w={w} />
+      ))}
     />
   );
 }
@@ -722,72 +821,83 @@ function NcSection({ c }: { c: Ctx }) {
 
 // ───────────────────────────── materials ─────────────────────────────
 
+const MATERIAL_KIND_WORD = { base: "Base metal", filler: "Filler metal", other: "Other" } as const;
+
+// ISO 3834-2 traceability: every material entry by heat or lot number, then the filler lots the passes
+// logged, so a reader can match one against the other.
 function MaterialsSection({ c }: { c: Ctx }) {
-  const { parts, fillers } = c.d.materials;
-  // Short tables: kept on one page with their heading.
+  const { entries, fillers } = c.d.materials;
+  const cols: Col[] = [
+    { title: "Kind", flex: 0.8 },
+    { title: "Description", flex: 2 },
+    { title: "Specification", flex: 1.4 },
+    { title: "Heat / lot no.", flex: 1.1 },
+    { title: "Certificate", flex: 1.1 },
+    { title: "Recorded", flex: 1.3 },
+  ];
   return (
-    <View wrap={false}>
-      <SectionHead n={6} title="Material traceability" />
-      <View style={s.row}>
-        <View style={{ flex: 1.35, marginRight: 14 }}>
-          <Text style={s.subHead}>Brackets and plate</Text>
-          {parts.length === 0 ? (
-            <None>No heat numbers recorded.</None>
-          ) : (
-            <View style={s.table}>
-              <TableHead
-                cols={[
-                  { title: "Item", flex: 1.4 },
-                  { title: "Specification", flex: 1.4 },
-                  { title: "Heat no.", flex: 1 },
-                ]}
-              />
-              {parts.map((m, i) => (
-                <View key={i} style={s.tr} wrap={false}>
-                  <Cell flex={1.4}>
-                    <Text>{P(m.item)}</Text>
-                  </Cell>
-                  <Cell flex={1.4}>
-                    <Text>{P(m.spec) || "\u2014"}</Text>
-                  </Cell>
-                  <Cell flex={1}>
-                    <Text style={[s.mono, s.bold]}>{P(m.heatNumber)}</Text>
-                  </Cell>
-                </View>
-              ))}
-            </View>
-          )}
+    <View>
+      <KeptTable
+        head={<SectionHead n={6} title="Material traceability" />}
+        cols={cols}
+        empty="No material entries recorded on this job."
+        rows={entries.map((m, i) => (
+          <View key={i} style={s.tr} wrap={false}>
+            <Cell flex={0.8}>
+              <Text style={s.small}>{MATERIAL_KIND_WORD[m.kind]}</Text>
+            </Cell>
+            <Cell flex={2}>
+              <Text style={m.withdrawn ? { color: COLOR.muted } : {}}>{P(m.description)}</Text>
+              {m.withdrawn ? <Verdict kind="withdrawn" word="withdrawn, no longer used on this job" /> : null}
+              {m.reason ? <Para style={[s.tiny, { color: COLOR.body }]} text={`${m.withdrawn ? "Why withdrawn" : m.corrects ? "Corrects an earlier entry" : "Reason"}: ${m.reason}`} /> : null}
+            </Cell>
+            <Cell flex={1.4}>
+              <Text style={s.small}>{P(m.specification) || "\u2014"}</Text>
+            </Cell>
+            <Cell flex={1.1}>
+              <Text style={[s.mono, s.bold]}>{P(m.heatNumber)}</Text>
+            </Cell>
+            <Cell flex={1.1}>
+              <Text style={[s.mono, s.small]}>{P(m.certificate) || "\u2014"}</Text>
+            </Cell>
+            <Cell flex={1.3}>
+              <Text style={s.small}>{P(m.recordedBy) || "\u2014"}</Text>
+              {m.recordedAt ? <Text style={[s.mono, s.tiny, { color: COLOR.body }]}>{when(c, m.recordedAt)}</Text> : null}
+            </Cell>
+          </View>
+        ))}
+      />
+      {fillers.length ? (
+        <View wrap={false}>
+          <Text style={s.subHead}>Filler lots logged on the weld passes</Text>
+          <View style={s.table}>
+            <TableHead
+              cols={[
+                { title: "Classification", flex: 1.5 },
+                { title: "\u00d8 mm", flex: 0.45, align: "right" },
+                { title: "Lot", flex: 1 },
+                { title: "Joints", flex: 1.5 },
+              ]}
+            />
+            {fillers.map((f, i) => (
+              <View key={i} style={s.tr} wrap={false}>
+                <Cell flex={1.5}>
+                  <Text>{P(f.classification) || "\u2014"}</Text>
+                </Cell>
+                <Cell flex={0.45} align="right">
+                  <Text style={s.mono}>{f.diameterMm === undefined ? "\u2014" : formatNumber(f.diameterMm, 1)}</Text>
+                </Cell>
+                <Cell flex={1}>
+                  <Text style={[s.mono, s.bold]}>{P(f.lot)}</Text>
+                </Cell>
+                <Cell flex={1.5}>
+                  <Text style={[s.mono, s.small]}>{P(f.joints.join(", ")) || "\u2014"}</Text>
+                </Cell>
+              </View>
+            ))}
+          </View>
         </View>
-        <View style={{ flex: 1 }}>
-          <Text style={s.subHead}>Filler metal</Text>
-          {fillers.length === 0 ? (
-            <None>No filler lots recorded.</None>
-          ) : (
-            <View style={s.table}>
-              <TableHead
-                cols={[
-                  { title: "Classification", flex: 1.5 },
-                  { title: "\u00d8 mm", flex: 0.45, align: "right" },
-                  { title: "Lot", flex: 1 },
-                ]}
-              />
-              {fillers.map((f, i) => (
-                <View key={i} style={s.tr} wrap={false}>
-                  <Cell flex={1.5}>
-                    <Text>{P(f.classification)}</Text>
-                  </Cell>
-                  <Cell flex={0.45} align="right">
-                    <Text style={s.mono}>{f.diameterMm === undefined ? "\u2014" : formatNumber(f.diameterMm, 1)}</Text>
-                  </Cell>
-                  <Cell flex={1}>
-                    <Text style={[s.mono, s.bold]}>{P(f.lot)}</Text>
-                  </Cell>
-                </View>
-              ))}
-            </View>
-          )}
-        </View>
-      </View>
+      ) : null}
     </View>
   );
 }

@@ -1,10 +1,11 @@
 // Fills the traveller from a job's record: the PDF prints exactly what the record says.
 import { checkDewPoint, evaluateDftArea } from "@/lib/coating";
 import { measureBounds, measureVerdict, torqueBounds, torqueVerdict } from "@/lib/jobs/tolerance";
-import type { JobRecord, StepView } from "@/lib/jobs/record";
+import type { InspectionView, JobRecord, PassView, StepView } from "@/lib/jobs/record";
 import type { GeometryCapture } from "@/lib/jobs/values";
-import type { TravellerData } from "@/lib/pdf/traveller-data";
+import type { TravellerData, TravellerWeldPassInput } from "@/lib/pdf/traveller-data";
 import type { Step } from "@/lib/procedures/schema";
+import { criteriaLabel, itemLabel } from "./labels";
 import { formatQuantity, fromSI, preferredUnit, unitSymbol, type Quantity, type UnitSystem } from "@/lib/units";
 
 type Extras = {
@@ -15,8 +16,11 @@ type Extras = {
   paper: "a4" | "letter";
   unitSystem: UnitSystem;
   photos: TravellerData["photos"];
-  /** heat-input limits of the published WPS each weld step names (missing when none is published) */
-  wpsLimits: Record<string, { heatInputMaxKJPerMm?: number; heatInputBasis?: "arc-energy" | "iso-q" }>;
+  /**
+   * heat-input limits of the published WPS each weld step names (missing when none is published); only for
+   * passes recorded without WPS findings and whose revision the record does not carry
+   */
+  wpsLimits?: Record<string, { heatInputMaxKJPerMm?: number; heatInputBasis?: "arc-energy" | "iso-q" }>;
   timeZone?: string;
 };
 
@@ -113,16 +117,124 @@ function geometryOf(record: JobRecord): TravellerData["geometry"] {
   return { before: capture(step.effectiveValue!.before), after: capture(step.effectiveValue!.after) };
 }
 
-function basisOf(x: Extras, ref: string) {
-  return x.wpsLimits[ref]?.heatInputBasis ?? "arc-energy";
+type WeldRow = NonNullable<TravellerData["welds"]>[number];
+type WeldPass = TravellerWeldPassInput;
+
+/** The heat-input limit of the WPS a pass was welded to: its own revision when the record has it, else the published one. */
+function limitOf(record: JobRecord, x: Extras, p: PassView): { max?: number; basis: "arc-energy" | "iso-q" } {
+  const w = record.wps.find((r) => r.revisionId === p.wps.revisionId) ?? record.wps.find((r) => r.reference.toUpperCase() === p.wps.reference.toUpperCase());
+  if (w) return { max: w.ranges.heatInputMaxKJPerMm, basis: w.ranges.heatInputBasis ?? "arc-energy" };
+  const l = x.wpsLimits?.[p.wps.reference];
+  return { max: l?.heatInputMaxKJPerMm, basis: l?.heatInputBasis ?? "arc-energy" };
 }
 
-// Judged as the WPS states its limit: arc energy (ASME IX QW-409.1) unless it says ISO/TR 17671-1 Q.
-function heatVerdict(x: Extras, ref: string, top: { heatInputKJPerMm: number; arcEnergyKJPerMm: number } | null): "within" | "over" | "na" {
-  const max = x.wpsLimits[ref]?.heatInputMaxKJPerMm;
-  if (max === undefined || !top) return "na";
-  const value = basisOf(x, ref) === "iso-q" ? top.heatInputKJPerMm : top.arcEnergyKJPerMm;
-  return value <= max + 1e-9 ? "within" : "over";
+// A pass judged as its WPS revision judged it when it was recorded (the findings the server stored), so the
+// print agrees with the runner. Passes recorded before findings were kept are judged against the WPS as the
+// record holds it: arc energy (ASME IX QW-409.1) unless the WPS states ISO/TR 17671-1 Q.
+function passOf(record: JobRecord, x: Extras, p: PassView): WeldPass {
+  const finding = p.findings.find((f) => f.field === "heatInput");
+  const others = p.findings.filter((f) => !f.ok && f.field !== "heatInput").map((f) => f.message.slice(0, 300));
+  let value: number;
+  let max: number | undefined;
+  let verdict: WeldPass["heatInputVerdict"];
+  if (finding && finding.value !== null) {
+    value = finding.value;
+    max = finding.max;
+    verdict = finding.ok ? "within" : "over";
+  } else if (finding || p.findings.length) {
+    // Checked against its WPS, which set no heat-input limit (or the value could not be worked out).
+    const l = limitOf(record, x, p);
+    value = l.basis === "iso-q" ? p.heatInputKJPerMm : p.arcEnergyKJPerMm;
+    max = finding?.max;
+    verdict = "na";
+    if (finding) others.unshift(finding.message.slice(0, 300));
+  } else {
+    const l = limitOf(record, x, p);
+    value = l.basis === "iso-q" ? p.heatInputKJPerMm : p.arcEnergyKJPerMm;
+    max = l.max;
+    verdict = max === undefined ? "na" : value <= max + 1e-9 ? "within" : "over";
+  }
+  return {
+    passNumber: p.passNumber,
+    welderName: p.welder.name,
+    wpsRef: p.wps.reference || "\u2014",
+    wpsRevision: p.wps.number,
+    heatInputKJPerMm: value,
+    ...(max === undefined ? {} : { heatInputMaxKJPerMm: max }),
+    heatInputVerdict: verdict,
+    outOfRange: others,
+    ...(p.override ? { override: { reason: p.override.reason.slice(0, 1000), by: p.override.by.name, at: p.override.at } } : {}),
+    struckOut: p.removed,
+  };
+}
+
+function inspectionOf(i: InspectionView) {
+  return {
+    round: i.round,
+    result: i.decision === "accepted" ? ("accept" as const) : ("reject" as const),
+    inspectorName: i.inspector.name,
+    at: i.inspectedAt,
+    criteria: criteriaLabel(i.criteria),
+    rejected: i.items.filter((it) => !it.ok).map((it) => ({ item: itemLabel(it.item), measured: it.measured.slice(0, 300), limit: it.limit.slice(0, 300) })),
+    note: i.notes.slice(0, 1000),
+  };
+}
+
+function weldOf(record: JobRecord, x: Extras, s: StepView): WeldRow {
+  const spec = s.spec as Extract<Step, { kind: "weld" }>;
+  const rounds = (s.joint?.rounds ?? []).map((r) => ({ round: r.round, passes: r.passes.map((p) => passOf(record, x, p)), inspection: r.inspection ? inspectionOf(r.inspection) : null }));
+  const live = record.passes.filter((p) => p.stepId === s.id && !p.removed);
+  const judged = rounds.flatMap((r) => r.passes).filter((p) => !p.struckOut);
+  const top = judged.reduce<WeldPass | null>((a, p) => (!a || p.heatInputKJPerMm > a.heatInputKJPerMm ? p : a), null);
+  const verdict = judged.some((p) => p.heatInputVerdict === "over") ? "over" : judged.some((p) => p.heatInputVerdict === "within") ? "within" : "na";
+  const max = judged.map((p) => p.heatInputMaxKJPerMm).find((m) => m !== undefined) ?? x.wpsLimits?.[spec.wpsRef]?.heatInputMaxKJPerMm;
+  return {
+    jointId: spec.jointId,
+    location: s.title,
+    ...(s.joint ? { state: s.joint.state } : {}),
+    welderName: [...new Set(live.map((p) => p.welder.name))].join(", ") || "\u2014",
+    wpsRef: spec.wpsRef,
+    process: spec.process,
+    filler: spec.filler,
+    fillerLot: [...new Set(live.map((p) => p.fillerLot))].join(", ") || "\u2014",
+    passes: live.length,
+    preheatC: live.length ? Math.min(...live.map((p) => p.preheatC)) : null,
+    heatInputKJPerMm: top?.heatInputKJPerMm ?? 0,
+    ...(max === undefined ? {} : { heatInputMaxKJPerMm: max }),
+    heatInputVerdict: verdict,
+    rounds,
+  };
+}
+
+/** Material entries as they stand: each corrected entry replaced by its correction; withdrawn ones printed as withdrawn. */
+function materialsOf(record: JobRecord): NonNullable<TravellerData["materials"]> {
+  const entries = record.materials
+    .filter((m) => !m.superseded)
+    .map((m) => ({
+      kind: m.kind,
+      description: m.description,
+      specification: m.specification,
+      heatNumber: m.heatNumber,
+      certificate: m.certificate,
+      withdrawn: m.withdrawn,
+      corrects: m.correctsId !== null,
+      reason: (m.reason ?? "").slice(0, 1000),
+      recordedBy: m.recordedBy.name,
+      recordedAt: m.recordedAt,
+    }));
+  const lots = new Map<string, { classification: string; lot: string; joints: string[] }>();
+  const order = new Map(record.steps.map((s) => [s.id, s.position]));
+  const passes = [...record.passes].sort((a, b) => (order.get(a.stepId) ?? 0) - (order.get(b.stepId) ?? 0) || a.round - b.round || a.passNumber - b.passNumber);
+  for (const p of passes) {
+    if (p.removed) continue;
+    const step = record.steps.find((s) => s.id === p.stepId);
+    const spec = step?.spec.kind === "weld" ? step.spec : null;
+    const key = `${p.fillerClassification}\u0000${p.fillerLot}`;
+    const entry = lots.get(key) ?? { classification: p.fillerClassification || spec?.filler || "", lot: p.fillerLot, joints: [] };
+    if (spec && !entry.joints.includes(spec.jointId)) entry.joints.push(spec.jointId);
+    lots.set(key, entry);
+  }
+  return { entries, fillers: [...lots.values()] };
 }
 
 export function buildTravellerData(record: JobRecord, x: Extras): TravellerData {
@@ -142,36 +254,13 @@ export function buildTravellerData(record: JobRecord, x: Extras): TravellerData 
         role: o.role,
         meaning: o.meaning,
         signedAt: o.signedAt,
+        ...(s.kind === "weld" && o.round !== null ? { round: o.round } : {}),
         ...(o.amendsSignOffId ? { amends: { signOffId: o.amendsSignOffId, reason: o.reason ?? "" } } : {}),
       })),
     });
     sections.set(s.sectionKey, section);
   }
-  const welds = record.steps
-    .filter((s) => s.kind === "weld")
-    .map((s) => {
-      const spec = s.spec as Extract<Step, { kind: "weld" }>;
-      const passes = record.passes.filter((p) => p.stepId === s.id && !p.removed);
-      const top = passes.reduce<(typeof passes)[number] | null>((a, p) => (!a || p.heatInputKJPerMm > a.heatInputKJPerMm ? p : a), null);
-      const inspector = record.steps.find((h) => h.kind === "hold" && h.position > s.position && h.signed);
-      return {
-        jointId: spec.jointId,
-        location: s.title,
-        welderName: [...new Set(passes.map((p) => p.welder.name))].join(", ") || "—",
-        wpsRef: spec.wpsRef,
-        process: spec.process,
-        filler: spec.filler,
-        fillerLot: [...new Set(passes.map((p) => p.fillerLot))].join(", ") || "—",
-        passes: passes.length,
-        preheatC: passes.length ? Math.min(...passes.map((p) => p.preheatC)) : null,
-        heatInputKJPerMm: (basisOf(x, spec.wpsRef) === "iso-q" ? top?.heatInputKJPerMm : top?.arcEnergyKJPerMm) ?? 0,
-        ...(x.wpsLimits[spec.wpsRef]?.heatInputMaxKJPerMm !== undefined ? { heatInputMaxKJPerMm: x.wpsLimits[spec.wpsRef]!.heatInputMaxKJPerMm } : {}),
-        heatInputVerdict: heatVerdict(x, spec.wpsRef, top),
-        inspections: inspector
-          ? inspector.signOffs.filter((o) => o.meaning === "inspected").map((o) => ({ result: "accept" as const, inspectorName: o.printedName, at: o.signedAt, note: `hold point ${inspector.key}` }))
-          : [],
-      };
-    });
+  const welds = [...record.steps].sort((a, b) => a.position - b.position).filter((s) => s.kind === "weld").map((s) => weldOf(record, x, s));
   return {
     shopName: x.shopName,
     jobNumber: j.number,
@@ -198,7 +287,7 @@ export function buildTravellerData(record: JobRecord, x: Extras): TravellerData 
       dispositionNotes: n.disposition?.notes ?? "",
       ...(n.disposition ? { dispositionedBy: n.disposition.decidedBy.name, dispositionedAt: n.disposition.decidedAt } : {}),
     })),
-    materials: { parts: [], fillers: [...new Set(record.passes.filter((p) => !p.removed).map((p) => p.fillerLot))].map((lot) => ({ classification: welds.find((w) => w.fillerLot.includes(lot))?.filler ?? "", lot })) },
+    materials: materialsOf(record),
     photos: x.photos,
     paper: x.paper,
     timeZone: x.timeZone ?? "UTC",

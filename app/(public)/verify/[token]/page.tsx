@@ -3,7 +3,10 @@ import { headers } from "next/headers";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { JobStateBadge } from "@/components/job-state";
+import { JobWelds } from "@/components/job-welds";
+import { MaterialTable } from "@/components/material-table";
 import { SafetyNote } from "@/components/safety-note";
+import { getJobRecord } from "@/db/queries/jobs-core";
 import { jobIdForToken, publicVerification } from "@/db/queries/records";
 import { can } from "@/lib/authz";
 import { getSessionUser, shopContextFor } from "@/lib/auth/context";
@@ -30,6 +33,8 @@ export default async function VerifyPage({ params }: { params: Promise<{ token: 
   const user = await getSessionUser();
   const ctx = user ? await shopContextFor(user, v.shopId) : null;
   const member = !!ctx && ctx.shopId === v.shopId && can(ctx.roles, "job:read");
+  // A member reads the record itself: weld joints with their inspections, and the materials by heat number.
+  const record = member && ctx ? await getJobRecord(ctx, found.jobId) : null;
   const intact = v.integrity.intact;
   return (
     <article className="space-y-4">
@@ -80,6 +85,21 @@ export default async function VerifyPage({ params }: { params: Promise<{ token: 
             <a className="btn btn-quiet" href={`/api/jobs/${found.jobId}/traveller`}>Traveller PDF</a>
             <a className="btn btn-quiet" href={`/api/jobs/${found.jobId}/export.csv`}>Record as CSV</a>
           </div>
+          {record ? (
+            <div className="mt-5 space-y-5">
+              <section aria-labelledby="verify-welds-h" data-testid="member-welds">
+                <h3 id="verify-welds-h" className="mb-2 text-lg font-bold">Weld joints and their inspections</h3>
+                <JobWelds record={record} system={ctx?.unitSystem ?? "metric"} compact />
+              </section>
+              <section aria-labelledby="verify-materials-h" className="card" data-testid="member-materials">
+                <h3 id="verify-materials-h" className="px-4 pt-3 text-lg font-bold">Materials</h3>
+                <p className="px-4 text-sm text-graphite-700">By heat or lot number, in the order recorded; corrected entries stay struck through beside their correction.</p>
+                <div className="mt-2">
+                  <MaterialTable materials={record.materials} compact />
+                </div>
+              </section>
+            </div>
+          ) : null}
         </section>
       ) : (
         <p className="card p-4 text-graphite-700">

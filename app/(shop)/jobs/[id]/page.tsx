@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { z } from "zod";
+import { JOINT_STATE_TONES, JobWelds } from "@/components/job-welds";
 import { PageHeader } from "@/components/page-header";
 import { SafetyNote } from "@/components/safety-note";
 import { SignOffList } from "@/components/runner/sign-off-list";
@@ -12,6 +13,7 @@ import { can } from "@/lib/authz";
 import { requireShop } from "@/lib/auth/context";
 import { AppError } from "@/lib/errors";
 import { describeJobActivity } from "@/lib/jobs/activity";
+import { JOINT_STATE_LABELS } from "@/lib/jobs/joint";
 import { JOB_STATE_LABELS } from "@/lib/jobs/labels";
 import type { JobRecord } from "@/lib/jobs/record";
 import { valueSummary } from "@/lib/jobs/summary";
@@ -23,6 +25,7 @@ import { kindGlyph } from "@/components/runner/glyph";
 import { GeometryChart } from "./_components/geometry-chart";
 import { EditJob } from "./_components/edit-job";
 import { ReleaseButton, VoidForm } from "./_components/job-actions";
+import { MaterialsPanel } from "./_components/materials-panel";
 import { NcList } from "./_components/nc-list";
 
 export const metadata: Metadata = { title: "Job" };
@@ -30,6 +33,8 @@ export const dynamic = "force-dynamic";
 
 const TABS = [
   ["checklist", "Checklist"],
+  ["welds", "Welds"],
+  ["materials", "Materials"],
   ["measurements", "Measurements"],
   ["photos", "Photos"],
   ["nonconformances", "Nonconformances"],
@@ -122,11 +127,15 @@ export default async function JobPage({ params, searchParams }: { params: Promis
             {label}
             {t === "nonconformances" && record.nonconformances.length ? <span className="figures ml-1">({record.nonconformances.length})</span> : null}
             {t === "photos" ? <span className="figures ml-1">({record.photos.filter((p) => !p.removed).length})</span> : null}
+            {t === "welds" ? <span className="figures ml-1">({record.steps.filter((s) => s.kind === "weld").length})</span> : null}
+            {t === "materials" ? <span className="figures ml-1">({record.materials.filter((m) => !m.superseded && !m.withdrawn).length})</span> : null}
           </Link>
         ))}
       </nav>
       <div className="mt-4">
         {tab === "checklist" ? <ChecklistTab record={record} system={system} /> : null}
+        {tab === "welds" ? <JobWelds record={record} system={system} /> : null}
+        {tab === "materials" ? <MaterialsPanel jobId={j.id} materials={record.materials} canRecord={open && can(ctx.roles, "material:record")} /> : null}
         {tab === "measurements" ? <MeasurementsTab record={record} system={system} /> : null}
         {tab === "photos" ? <PhotosTab record={record} /> : null}
         {tab === "nonconformances" ? <NcList record={record} /> : null}
@@ -159,10 +168,17 @@ function ChecklistTab({ record, system }: { record: JobRecord; system: "metric" 
                       <span aria-hidden="true" className="mr-1">{kindGlyph(s.kind)}</span>
                       {s.position}. {s.title} <span className="text-sm font-normal text-graphite-700">({KIND_LABELS[s.kind]})</span>
                     </Link>
-                    {s.signed ? <StatusBadge tone="pass">Signed</StatusBadge> : nc ? <StatusBadge tone="fail">NC-{nc.number} open</StatusBadge> : s.lockedBy ? <StatusBadge tone="warn">Locked</StatusBadge> : <StatusBadge tone="idle">Open</StatusBadge>}
+                    <span className="flex flex-wrap items-center gap-2">
+                      {s.joint ? (
+                        <Link href={`/jobs/${record.job.id}?tab=welds`} className="underline-offset-2 hover:underline" data-testid="checklist-joint-state">
+                          <StatusBadge tone={JOINT_STATE_TONES[s.joint.state]}>{`${JOINT_STATE_LABELS[s.joint.state]} · round ${s.joint.round}`}</StatusBadge>
+                        </Link>
+                      ) : null}
+                      {s.signed ? <StatusBadge tone="pass">Signed</StatusBadge> : nc ? <StatusBadge tone="fail">NC-{nc.number} open</StatusBadge> : s.lockedBy ? <StatusBadge tone="warn">Locked</StatusBadge> : <StatusBadge tone="idle">Open</StatusBadge>}
+                    </span>
                   </div>
                   <p className="text-sm text-graphite-800">{valueSummary(s.spec, s.effectiveValue, system, passes)}</p>
-                  {s.signOffs.length ? <div className="mt-2"><SignOffList signOffs={s.signOffs} summary={(o) => (o.amendsSignOffId ? valueSummary(s.spec, o.value, system, passes) : null)} /></div> : null}
+                  {s.signOffs.length ? <div className="mt-2"><SignOffList signOffs={s.signOffs} summary={(o) => (o.amendsSignOffId ? valueSummary(s.spec, o.value, system, passes) : s.joint && o.round !== null ? roundSummary(record, o) : null)} /></div> : null}
                 </li>
               );
             })}
@@ -170,6 +186,21 @@ function ChecklistTab({ record, system }: { record: JobRecord; system: "metric" 
         </section>
       ))}
     </div>
+  );
+}
+
+// A weld step's sign-offs each belong to a round: the welder's closes the round's passes, the inspector's
+// is that round's visual inspection, accepted or rejected (the welds tab has the details).
+function roundSummary(record: JobRecord, o: JobRecord["steps"][number]["signOffs"][number]) {
+  if (o.meaning !== "inspected") return `Round ${o.round}: the welder signed the round's passes.`;
+  const i = record.inspections.find((x) => x.signOffId === o.id);
+  if (!i) return `Round ${o.round}.`;
+  return (
+    <span className="flex flex-wrap items-center gap-2">
+      Round {o.round} visual inspection:
+      <StatusBadge tone={i.decision === "accepted" ? "pass" : "fail"}>{i.decision === "accepted" ? "Accepted" : "Rejected"}</StatusBadge>
+      <Link href={`/jobs/${record.job.id}?tab=welds`} className="underline underline-offset-2">details on the Welds tab</Link>
+    </span>
   );
 }
 
