@@ -10,7 +10,7 @@ import { JOINT_STATE_LABELS } from "@/lib/jobs/joint";
 import type { InspectionView, JobRecord, JointRound, JointView, PassView, PhotoView, QualificationSummary, SignOffView, StepView, WpsSummary } from "@/lib/jobs/record";
 import { defaultPadUnit, readPadNumber, show, symbolOf } from "@/lib/jobs/units";
 import type { Step } from "@/lib/procedures/schema";
-import { checkPassAgainstWps, passHeatInput, type PassHeatInputResult, type VisualCriteria, type VisualItem, type WpsCheckResult, type WpsRanges } from "@/lib/welding";
+import { checkPassAgainstWps, passHeatInput, type PassHeatInputResult, VISUAL_CRITERIA_LABELS, type VisualItem, type WpsCheckResult, type WpsRanges } from "@/lib/welding";
 import { apiJson, ApiError, newKey } from "./api";
 import { applyKey, NumberPad, PadField, UnitSwitch } from "./number-pad";
 import { storedFrom } from "./pad-state";
@@ -23,12 +23,7 @@ type Field = "volts" | "amps" | "speed" | "bead" | "arcTime" | "energy" | "power
 type Travel = "speed" | "bead";
 type Machine = "none" | "energy" | "power";
 
-export const CRITERIA_LABELS: Record<VisualCriteria, string> = {
-  "aws-d1.1-static": "AWS D1.1:2020 Table 8.1, statically loaded",
-  "iso5817-B": "ISO 5817:2014 quality level B",
-  "iso5817-C": "ISO 5817:2014 quality level C",
-  "iso5817-D": "ISO 5817:2014 quality level D",
-};
+export const CRITERIA_LABELS = VISUAL_CRITERIA_LABELS;
 
 export const ITEM_LABELS: Record<VisualItem, string> = {
   cracks: "Cracks",

@@ -15,17 +15,11 @@ import type { JobRecord, StepView } from "@/lib/jobs/record";
 import type { InspectionBody, MaterialInput } from "@/lib/jobs/schemas";
 import { sendMail, mailHtml } from "@/lib/mail";
 import { contentHash } from "@/lib/seal";
-import { judgeVisual, type VisualVerdict } from "@/lib/welding";
+import { judgeVisual, visualCriteriaLabel, type VisualVerdict } from "@/lib/welding";
 import { appendSignOff, assertJobOpen, guarded, loadRecord, logActivity, refreshJobState } from "./jobs-core";
 import { findStep, verifyPinLogged } from "./jobs-steps";
 
-const CRITERIA_LABELS: Record<string, string> = {
-  "aws-d1.1-static": "AWS D1.1:2020 Table 8.1, statically loaded nontubular",
-  "iso5817-B": "ISO 5817:2014 quality level B",
-  "iso5817-C": "ISO 5817:2014 quality level C",
-  "iso5817-D": "ISO 5817:2014 quality level D",
-};
-export const criteriaLabel = (c: string) => CRITERIA_LABELS[c] ?? c;
+const criteriaLabel = visualCriteriaLabel;
 
 function weldStepOf(record: JobRecord, stepId: string): StepView & { joint: NonNullable<StepView["joint"]> } {
   const step = findStep(record, stepId);
@@ -308,12 +302,14 @@ export async function recordMaterial(ctx: ShopContext, jobId: string, input: Mat
       db().transaction(async (tx) => {
         const record = await loadRecord(tx, ctx, jobId, { lock: true });
         assertJobOpen(record);
+        const old = input.correctsId ? record.materials.find((m) => m.id === input.correctsId) : undefined;
         if (input.correctsId) {
-          const old = record.materials.find((m) => m.id === input.correctsId);
           if (!old) throw new AppError("not_found", "That material entry is not on this job.");
           if (old.superseded) throw new AppError("conflict", "That entry was corrected already; correct the latest one.");
           if (old.withdrawn) throw new AppError("conflict", "That entry was withdrawn; record the material anew.");
         }
+        // A withdrawal says the entry is no longer used; it repeats that entry as it was, whatever was sent.
+        if (input.withdrawn && old) input = { ...input, kind: old.kind, description: old.description, specification: old.specification, heatNumber: old.heatNumber, certificate: old.certificate };
         const [row] = await tx
           .insert(jobMaterial)
           .values({

@@ -9,6 +9,15 @@ import { MM_PER_IN, lte, round } from "./units";
 
 export const VISUAL_CRITERIA = ["aws-d1.1-static", "iso5817-B", "iso5817-C", "iso5817-D"] as const;
 export type VisualCriteria = (typeof VISUAL_CRITERIA)[number];
+
+/** The criteria as people name them, for forms, mails, the record and the traveller. */
+export const VISUAL_CRITERIA_LABELS: Record<VisualCriteria, string> = {
+  "aws-d1.1-static": "AWS D1.1:2020 Table 8.1, statically loaded nontubular",
+  "iso5817-B": "ISO 5817:2014 quality level B",
+  "iso5817-C": "ISO 5817:2014 quality level C",
+  "iso5817-D": "ISO 5817:2014 quality level D",
+};
+export const visualCriteriaLabel = (c: string): string => VISUAL_CRITERIA_LABELS[c as VisualCriteria] ?? c;
 export type IsoLevel = "B" | "C" | "D";
 
 export interface VisualObservations {

@@ -348,6 +348,10 @@ describe("material traceability", () => {
       ["HT 7731-0421", false],
     ]);
     expect((await api(url, { session: welder, body: { kind: "base", description: "Bracket plate 10 mm", heatNumber: "X", correctsId: first.json.materialId, reason: "Again, on the old one" } })).status).toBe(409);
+    // A withdrawal repeats the entry as it was, whatever else was sent with it.
+    const withdrawn = await api(url, { session: lead, body: { kind: "filler", description: "Something else", heatNumber: "HT 9999", correctsId: fixed.json.materialId, withdrawn: true, reason: "Plate swapped for another heat before welding." } });
+    expect(withdrawn.status, withdrawn.text).toBe(201);
+    expect(withdrawn.json.record.materials.at(-1)).toMatchObject({ kind: "base", heatNumber: "HT 7731-0421", withdrawn: true, correctsId: fixed.json.materialId });
     const auditor = await session("auditor@irongully.example");
     expect((await api(url, { session: auditor, body: { kind: "filler", description: "Wire", heatNumber: "L1" } })).status).toBe(403);
     const err = await withDb(async (c) => c.query(`update job_material set heat_number = 'HT 0' where job_id = $1`, [rec.job.id]).then(() => null, (e: Error) => e), process.env.ADMIN_DATABASE_URL || process.env.DATABASE_URL);
