@@ -11,7 +11,6 @@ import { buildTravellerData } from "@/lib/traveller/build";
 import { getJobRecord } from "./jobs-core";
 import { photoForServing } from "./jobs-photos";
 import { shownIntegrity, tokenForJob, verifyJobRecord } from "./records";
-import { publishedWpsByReference } from "./wps";
 
 export function verifyUrlFor(token: string) {
   return `${env().APP_URL.replace(/\/$/, "")}/verify/${token}`;
@@ -28,15 +27,6 @@ export async function travellerPdf(ctx: ShopContext, jobId: string, paper: "a4" 
       .from(procedureVersion)
       .where(and(eq(procedureVersion.id, record.job.procedureVersionId), eq(procedureVersion.shopId, ctx.shopId))),
   ]);
-  const refs = [...new Set(record.steps.flatMap((s) => (s.spec.kind === "weld" ? [s.spec.wpsRef] : [])))];
-  const wpsLimits = Object.fromEntries(
-    await Promise.all(
-      refs.map(async (ref) => {
-        const w = await publishedWpsByReference(ctx.shopId, ref);
-        return [ref, { heatInputMaxKJPerMm: w?.ranges.heatInputMaxKJPerMm, heatInputBasis: w?.ranges.heatInputBasis }] as const;
-      }),
-    ),
-  );
   const photos = [];
   for (const p of record.photos.filter((ph) => !ph.removed).slice(0, 60)) {
     const thumb = await photoForServing(ctx.shopId, p.id, "thumb").catch(() => null);
@@ -54,7 +44,6 @@ export async function travellerPdf(ctx: ShopContext, jobId: string, paper: "a4" 
     paper,
     unitSystem: ctx.unitSystem,
     photos,
-    wpsLimits,
   });
   const pdf = await renderTraveller(data);
   return { pdf, jobNumber: record.job.number, released: record.job.status === "released", customerEmail: record.job.customerEmail, customerName: record.job.customerName };

@@ -20,7 +20,6 @@ type Extras = {
    * heat-input limits of the published WPS each weld step names (missing when none is published); only for
    * passes recorded without WPS findings and whose revision the record does not carry
    */
-  wpsLimits?: Record<string, { heatInputMaxKJPerMm?: number; heatInputBasis?: "arc-energy" | "iso-q" }>;
   timeZone?: string;
 };
 
@@ -121,12 +120,12 @@ type WeldRow = NonNullable<TravellerData["welds"]>[number];
 type WeldPass = TravellerWeldPassInput;
 
 /** The heat-input limit of the WPS a pass was welded to: its own revision when the record has it, else the published one. */
-function limitOf(record: JobRecord, x: Extras, p: PassView): { max?: number; basis: "arc-energy" | "iso-q" } {
-  const w = record.wps.find((r) => r.revisionId === p.wps.revisionId) ?? record.wps.find((r) => r.reference.toUpperCase() === p.wps.reference.toUpperCase());
-  if (w) return { max: w.ranges.heatInputMaxKJPerMm, basis: w.ranges.heatInputBasis ?? "arc-energy" };
-  const l = x.wpsLimits?.[p.wps.reference];
-  return { max: l?.heatInputMaxKJPerMm, basis: l?.heatInputBasis ?? "arc-energy" };
+function limitOf(record: JobRecord, p: PassView): { max?: number; basis: "arc-energy" | "iso-q" } {
+  const w = record.wps.find((r) => r.revisionId === p.wps.revisionId) ?? wpsNamed(record, p.wps.reference);
+  return { max: w?.ranges.heatInputMaxKJPerMm, basis: w?.ranges.heatInputBasis ?? "arc-energy" };
 }
+
+const wpsNamed = (record: JobRecord, reference: string) => record.wps.find((r) => r.reference.toUpperCase() === reference.trim().toUpperCase());
 
 // A pass judged as its WPS revision judged it when it was recorded (the findings the server stored), so the
 // print agrees with the runner. Passes recorded before findings were kept are judged against the WPS as the
@@ -143,13 +142,13 @@ function passOf(record: JobRecord, x: Extras, p: PassView): WeldPass {
     verdict = finding.ok ? "within" : "over";
   } else if (finding || p.findings.length) {
     // Checked against its WPS, which set no heat-input limit (or the value could not be worked out).
-    const l = limitOf(record, x, p);
+    const l = limitOf(record, p);
     value = l.basis === "iso-q" ? p.heatInputKJPerMm : p.arcEnergyKJPerMm;
     max = finding?.max;
     verdict = "na";
     if (finding) others.unshift(finding.message.slice(0, 300));
   } else {
-    const l = limitOf(record, x, p);
+    const l = limitOf(record, p);
     value = l.basis === "iso-q" ? p.heatInputKJPerMm : p.arcEnergyKJPerMm;
     max = l.max;
     verdict = max === undefined ? "na" : value <= max + 1e-9 ? "within" : "over";
@@ -187,7 +186,7 @@ function weldOf(record: JobRecord, x: Extras, s: StepView): WeldRow {
   const judged = rounds.flatMap((r) => r.passes).filter((p) => !p.struckOut);
   const top = judged.reduce<WeldPass | null>((a, p) => (!a || p.heatInputKJPerMm > a.heatInputKJPerMm ? p : a), null);
   const verdict = judged.some((p) => p.heatInputVerdict === "over") ? "over" : judged.some((p) => p.heatInputVerdict === "within") ? "within" : "na";
-  const max = judged.map((p) => p.heatInputMaxKJPerMm).find((m) => m !== undefined) ?? x.wpsLimits?.[spec.wpsRef]?.heatInputMaxKJPerMm;
+  const max = judged.map((p) => p.heatInputMaxKJPerMm).find((m) => m !== undefined) ?? wpsNamed(record, spec.wpsRef)?.ranges.heatInputMaxKJPerMm;
   return {
     jointId: spec.jointId,
     location: s.title,
