@@ -3,7 +3,11 @@
 // an inspector corrects the entry with a reason (the old one stays, struck through); an auditor only reads.
 import pg from "pg";
 import { insertPublishedProcedure, jobBody, SHORT_PROCEDURE_CONTENT } from "../fixtures/jobs/procedure";
-import { expect, signInAs, test } from "./support";
+import { randomInt } from "node:crypto";
+import { request as playwrightRequest } from "@playwright/test";
+import { DEMO_PASSWORD, expect, signedInAs, test } from "./support";
+
+const base = process.env.GUSSET_TEST_URL ?? "http://127.0.0.1:3100";
 
 async function seededJob(tag: string): Promise<string> {
   const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
@@ -18,7 +22,7 @@ async function seededJob(tag: string): Promise<string> {
 
 test("the welds tab of a repaired job shows both rounds in order, with the rejected item and its limit", async ({ page }) => {
   const id = await seededJob("AX-0533");
-  await signInAs(page, "auditor@irongully.example");
+  await signedInAs(page, "auditor@irongully.example");
   await page.goto(`/jobs/${id}?tab=welds`);
   const w2 = page.getByTestId("joint-W2");
   await expect(w2).toContainText("Accepted");
@@ -33,18 +37,19 @@ test("the welds tab of a repaired job shows both rounds in order, with the rejec
   await expect(page.getByTestId("material-add")).toHaveCount(0);
 });
 
-test("materials: recorded with field errors shown, corrected with a reason, the old entry kept and struck through", async ({ page, browser }) => {
+test("materials: recorded with field errors shown, corrected with a reason, the old entry kept and struck through", async ({ browser }) => {
   const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
   await db.connect();
   const versionId = await insertPublishedProcedure(db, { shopSlug: "iron-gully", ownerEmail: "lead@irongully.example", title: "Materials test procedure", content: SHORT_PROCEDURE_CONTENT });
   await db.end();
-  await signInAs(page, "lead@irongully.example");
-  const created = await page.request.post("/api/jobs", { data: jobBody(versionId, { customerName: "Materials Test Station" }) });
+  const lead = await playwrightRequest.newContext({ baseURL: base, extraHTTPHeaders: { origin: base, "x-forwarded-for": `10.67.${randomInt(0, 255)}.${randomInt(1, 254)}` } });
+  expect((await lead.post("/api/auth/sign-in/email", { data: { email: "lead@irongully.example", password: DEMO_PASSWORD } })).status()).toBe(200);
+  const created = await lead.post("/api/jobs", { data: jobBody(versionId, { customerName: "Materials Test Station" }) });
   expect(created.status()).toBe(201);
   const jobId = ((await created.json()) as { job: { id: string } }).job.id;
 
   const welder = await (await browser.newContext()).newPage();
-  await signInAs(welder, "welder@irongully.example");
+  await signedInAs(welder, "welder@irongully.example");
   await welder.goto(`/jobs/${jobId}?tab=materials`);
   await expect(welder.getByTestId("materials-empty")).toBeVisible();
   await welder.getByTestId("material-add").click();
@@ -58,7 +63,7 @@ test("materials: recorded with field errors shown, corrected with a reason, the 
   await expect(welder.getByTestId("material-1")).toContainText("HT 7731-0412");
 
   const inspector = await (await browser.newContext()).newPage();
-  await signInAs(inspector, "inspector@irongully.example");
+  await signedInAs(inspector, "inspector@irongully.example");
   await inspector.goto(`/jobs/${jobId}?tab=materials`);
   await inspector.getByTestId("material-correct-1").click();
   const fix = inspector.getByTestId("material-form");
