@@ -476,7 +476,7 @@ export async function seedJobs(db: SeedDb, shopId: string, people: readonly Pers
         const open = plan.openJoints?.find((j) => j.stepKey === key);
         const repair = plan.repair?.stepKey === key ? plan.repair : null;
         const outcomes: ("accepted" | "rejected" | "pending")[] = open ? [open.state === "awaiting_inspection" ? "pending" : "rejected"] : repair ? ["rejected", "accepted"] : ["accepted"];
-        const found = open?.state === "repair" ? { undercutDepthMm: 1.4, notes: "Craters left unfilled at both ends and undercut on the tube side. Grind back and reweld the ends." } : repair;
+        const found = open?.state === "repair" ? { undercutDepthMm: 1.4, notes: "Undercut 1.4 mm deep along the tube-side toe, about 60 mm long. Grind it out and reweld the toe." } : repair;
         let repairOf: string | null = null;
         let when = signedAt.getTime();
         for (const [i, outcome] of outcomes.entries()) {
