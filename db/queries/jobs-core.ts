@@ -30,7 +30,7 @@ import { assembleRecord, type JobParts, type Viewer } from "@/lib/jobs/assemble"
 import type { JobStateName } from "@/lib/jobs/labels";
 import type { InspectionView, JobRecord, MaterialView, NonconformanceView, PassView, PhotoView, QualificationSummary, SignOffView, WpsSummary } from "@/lib/jobs/record";
 import { toWpsRanges } from "@/app/api/wps/schema";
-import { currentQualification } from "@/db/queries/qualifications";
+import { currentQualification, type DbOrTx } from "@/db/queries/qualifications";
 import { deriveJobState } from "@/lib/jobs/state";
 
 export type Exec = PgDatabase<NodePgQueryResultHKT, typeof schemaNs>;
@@ -457,7 +457,7 @@ async function viewerQualifications(x: Exec, ctx: ShopContext, parts: JobParts):
   const today = new Date().toISOString().slice(0, 10);
   const out: QualificationSummary[] = [];
   for (const process of processes) {
-    const q = await currentQualification({ shopId: ctx.shopId, welderUserId: ctx.userId, process, onDate: today }, x as never);
+    const q = await currentQualification({ shopId: ctx.shopId, welderUserId: ctx.userId, process, onDate: today }, x as DbOrTx);
     out.push({ process, ok: q.ok, reason: q.reason, lapsedOn: q.lapsedOn ?? null, expiresOn: q.expiresOn ?? null });
   }
   return out;

@@ -456,7 +456,7 @@ export async function recordWeldPass(ctx: ShopContext, jobId: string, stepId: st
           })
           .returning({ id: weldPass.id });
         // Continuity: every pass is a use of the process by its welder (ASME IX QW-322.1, AWS D1.1).
-        await recordProcessUse(tx as never, { shopId: ctx.shopId, welderUserId: ctx.userId, process: spec.process, date: new Date() });
+        await recordProcessUse(tx, { shopId: ctx.shopId, welderUserId: ctx.userId, process: spec.process, date: new Date() });
         await refreshJobState(tx, ctx.shopId, jobId, ctx.userId);
         await logActivity(tx, {
           shopId: ctx.shopId,
