@@ -40,7 +40,7 @@ function checkInspectable(record: JobRecord, ctx: ShopContext, stepId: string, b
   }
   const separation = inspectionSeparation(joint, ctx.userId);
   if (separation) throw new AppError("forbidden", separation);
-  const photos = body.photoIds.map((id) => {
+  const photos = [...new Set(body.photoIds)].map((id) => {
     const p = record.photos.find((x) => x.id === id);
     if (!p || p.removed) throw new AppError("unprocessable", "A photo of this inspection is not on this job.", { photoIds: ["Take the photos on this job, then inspect."] });
     return { id: p.id, sha256: p.sha256 };
