@@ -413,12 +413,14 @@ async function loadNonconformances(x: Exec, jobId: string): Promise<Nonconforman
       decidedByName: decider.name,
       decidedAt: nonconformanceDisposition.decidedAt,
       signOffId: nonconformanceDisposition.signOffId,
+      dispositionHash: signOff.contentHash,
     })
     .from(nonconformance)
     .innerJoin(jobStep, eq(jobStep.id, nonconformance.stepId))
     .innerJoin(raiser, eq(raiser.id, nonconformance.raisedBy))
     .leftJoin(nonconformanceDisposition, eq(nonconformanceDisposition.nonconformanceId, nonconformance.id))
     .leftJoin(decider, eq(decider.id, nonconformanceDisposition.decidedBy))
+    .leftJoin(signOff, eq(signOff.id, nonconformanceDisposition.signOffId))
     .where(eq(nonconformance.jobId, jobId))
     .orderBy(asc(nonconformance.number));
   const ids = rows.map((r) => r.id);
@@ -439,7 +441,7 @@ async function loadNonconformances(x: Exec, jobId: string): Promise<Nonconforman
     photoIds: photoRows.filter((p) => p.nc === r.id).map((p) => p.id),
     disposition:
       r.disposition && r.decidedById && r.decidedAt && r.signOffId
-        ? { disposition: r.disposition, notes: r.notes ?? "", decidedBy: { id: r.decidedById, name: r.decidedByName ?? "" }, decidedAt: r.decidedAt.toISOString(), signOffId: r.signOffId }
+        ? { disposition: r.disposition, notes: r.notes ?? "", decidedBy: { id: r.decidedById, name: r.decidedByName ?? "" }, decidedAt: r.decidedAt.toISOString(), signOffId: r.signOffId, contentHash: r.dispositionHash ?? "" }
         : null,
   }));
 }

@@ -149,6 +149,8 @@ export type DispositionView = {
   decidedBy: PersonRef;
   decidedAt: string;
   signOffId: string;
+  /** SHA-256 of the disposition's signed content */
+  contentHash: string;
 };
 
 export type NonconformanceView = {

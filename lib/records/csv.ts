@@ -145,7 +145,7 @@ export function recordCsv(record: JobRecord, integrity: { intact: boolean; entri
   for (const nc of record.nonconformances) {
     lines.push(csvRow(["nonconformance", "", nc.stepKey, "", `NC ${nc.number}: ${nc.description}`, nc.observed, nc.raisedBy.name, "", "raised", nc.raisedAt, "", "", "", jointOf(nc.stepId), ""]));
     if (nc.disposition) {
-      lines.push(csvRow(["disposition", "", nc.stepKey, "", `NC ${nc.number}: ${nc.disposition.disposition}`, nc.disposition.notes, nc.disposition.decidedBy.name, "", "dispositioned", nc.disposition.decidedAt, "", "", "", jointOf(nc.stepId), ""]));
+      lines.push(csvRow(["disposition", "", nc.stepKey, "", `NC ${nc.number}: ${nc.disposition.disposition}`, nc.disposition.notes, nc.disposition.decidedBy.name, "", "dispositioned", nc.disposition.decidedAt, nc.disposition.contentHash, "", "", jointOf(nc.stepId), ""]));
     }
   }
   for (const ph of record.photos) {

@@ -157,6 +157,12 @@ describe("weld passes against the WPS and the welder's qualification", () => {
     const decided = await api(`/api/jobs/${rec.job.id}/nonconformances/${nc.id}/disposition`, { session: inspector, body: { disposition: "use_as_is", notes: "Within the qualified range of the PQR.", pin: PIN } });
     expect(decided.status, decided.text).toBeLessThan(300);
     expect((await signRound(welder, rec.job.id)).status).toBe(201);
+    // The record's CSV carries the disposition with the hash of what was signed.
+    const hash = await withDb(async (c) => (await c.query(`select so.content_hash from nonconformance_disposition d join sign_off so on so.id = d.sign_off_id where d.nonconformance_id = $1`, [nc.id])).rows[0].content_hash as string);
+    const csv = await api(`/api/jobs/${rec.job.id}/export.csv`, { session: lead });
+    expect(csv.status).toBe(200);
+    const row = csv.text.split("\n").find((l) => l.startsWith("disposition,"));
+    expect(row).toContain(hash);
   });
 
   it("preheat below the WPS minimum is refused with the reason; nothing is recorded", async () => {

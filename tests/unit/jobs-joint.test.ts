@@ -56,7 +56,7 @@ describe("weld joint rounds", () => {
     expect(view([{ ...flagged, override: { reason: "PQR covers it", by: { id: "dana", name: "Dana" }, at: "2026-11-01T10:30:00.000Z" } }], [], []).uncovered).toEqual([]);
     const nc = (raisedAt: string, decided: boolean): NonconformanceView => ({
       id: "nc", number: 1, stepId: STEP, stepKey: "w", stepTitle: "W1", description: "High volts", proposedDisposition: "use_as_is", observed: null, raisedBy: { id: "mick", name: "Mick" }, raisedAt, photoIds: [],
-      disposition: decided ? { disposition: "use_as_is", notes: "", decidedBy: { id: "dana", name: "Dana" }, decidedAt: raisedAt, signOffId: "so-nc" } : null,
+      disposition: decided ? { disposition: "use_as_is", notes: "", decidedBy: { id: "dana", name: "Dana" }, decidedAt: raisedAt, signOffId: "so-nc", contentHash: "c".repeat(64) } : null,
     });
     expect(view([flagged], [], [], [nc("2026-11-01T11:00:00.000Z", true)]).uncovered).toEqual([]);
     expect(view([flagged], [], [], [nc("2026-11-01T11:00:00.000Z", false)]).uncovered).toHaveLength(1);
