@@ -36,9 +36,9 @@ const NUM: Record<NumKey, { label: string; short: string; min: number; max: numb
   measuredLegMm: { label: "Smallest leg measured", short: "smallest leg", min: 0, max: 100 },
   undersizeLengthMm: { label: "Length under size", short: "length under size", min: 0, max: 100_000 },
   undercutDepthMm: { label: "Deepest undercut", short: "deepest undercut", min: 0, max: 20 },
-  undercutAccumulatedMm: { label: "Undercut length in any 300 mm", short: "undercut length", min: 0, max: 300 },
-  porosityMm: { label: "Pores ≥ 0.8 mm: sum in any 25 mm", short: "pores in 25 mm", min: 0, max: 25 },
-  porosity12Mm: { label: "Pores ≥ 0.8 mm: sum in any 300 mm", short: "pores in 300 mm", min: 0, max: 300 },
+  undercutAccumulatedMm: { label: "Undercut length in any 300 mm (12 in)", short: "undercut length", min: 0, max: 300 },
+  porosityMm: { label: "Pores ≥ 0.8 mm: sum in any 25 mm (1 in)", short: "pores in 25 mm", min: 0, max: 25 },
+  porosity12Mm: { label: "Pores ≥ 0.8 mm: sum in any 300 mm (12 in)", short: "pores in 300 mm", min: 0, max: 300 },
 };
 
 // What each judged item reads, in the order judgeVisual reports them.
@@ -58,13 +58,22 @@ const SHARED: Partial<Record<VisualItem, NumKey[]>> = { undersize: ["specifiedLe
 
 type Upload = { key: string; file: File; progress: number; status: "uploading" | "failed"; error?: string };
 
-function numberState(text: string, spec: (typeof NUM)[NumKey]): { value?: number; error?: string } {
+type LengthUnit = "mm" | "in";
+const MM_PER_IN = 25.4;
+const toMm = (v: number, unit: LengthUnit) => (unit === "in" ? v * MM_PER_IN : v);
+/** A length in the chosen unit, as the inspector would type it (inches to 4 decimals, so mm survive a round trip). */
+const lengthText = (mm: number, unit: LengthUnit) => (unit === "in" ? String(Math.round((mm / MM_PER_IN) * 10_000) / 10_000) : String(Math.round(mm * 100) / 100));
+const lengthShown = (mm: number, unit: LengthUnit) => `${lengthText(mm, unit)} ${unit}`;
+
+/** The typed entry in millimetres (the observations are SI), or why it cannot be read. */
+function numberState(text: string, spec: (typeof NUM)[NumKey], unit: LengthUnit): { value?: number; error?: string } {
   const t = text.trim();
   if (!t) return {};
-  const v = readPadNumber(t);
-  if (v === null) return { error: "A number in mm, like 1.5." };
-  if (spec.above ? v <= spec.min : v < spec.min) return { error: spec.above ? "Above 0 mm." : "0 mm or more." };
-  if (v > spec.max) return { error: `At most ${spec.max.toLocaleString("en")} mm.` };
+  const typed = readPadNumber(t);
+  if (typed === null) return { error: unit === "in" ? "A number in inches, like 0.0625." : "A number in mm, like 1.5." };
+  const v = toMm(typed, unit);
+  if (spec.above ? v <= spec.min : v < spec.min) return { error: spec.above ? `Above 0 ${unit}.` : `0 ${unit} or more.` };
+  if (v > spec.max) return { error: `At most ${lengthShown(spec.max, unit)}.` };
   return { value: v };
 }
 
@@ -75,11 +84,13 @@ export function InspectionPanel({ record, step }: { record: JobRecord; step: Ste
   const viewer = record.viewer;
   const setRecord = useSetRecord(jobId);
   const [criteria, setCriteria] = useState<VisualCriteria>("aws-d1.1-static");
+  // Entries in the viewer's units; the record and the judgement are in millimetres.
+  const [lenUnit, setLenUnit] = useState<LengthUnit>(viewer.unitSystem === "imperial" ? "in" : "mm");
   const [answers, setAnswers] = useState<Record<BoolKey, boolean | null>>({ cracks: null, fusionComplete: null, cratersFilled: null, profileAcceptable: null, arcStrikes: null, spatterAcceptable: null });
   const [texts, setTexts] = useState<Record<NumKey, string>>({
     materialThicknessMm: "",
-    specifiedLegMm: String(spec.sizeMm),
-    weldLengthMm: String(spec.lengthMm),
+    specifiedLegMm: lengthText(spec.sizeMm, viewer.unitSystem === "imperial" ? "in" : "mm"),
+    weldLengthMm: lengthText(spec.lengthMm, viewer.unitSystem === "imperial" ? "in" : "mm"),
     measuredLegMm: "",
     undersizeLengthMm: "",
     undercutDepthMm: "",
@@ -106,7 +117,7 @@ export function InspectionPanel({ record, step }: { record: JobRecord; step: Ste
   }
 
   // --- entries ---
-  const parsed = Object.fromEntries((Object.keys(NUM) as NumKey[]).map((k) => [k, numberState(texts[k], NUM[k])])) as Record<NumKey, { value?: number; error?: string }>;
+  const parsed = Object.fromEntries((Object.keys(NUM) as NumKey[]).map((k) => [k, numberState(texts[k], NUM[k], lenUnit)])) as Record<NumKey, { value?: number; error?: string }>;
   const val = (k: NumKey) => parsed[k].value;
   // No undercut means no undercut length; no pore in any 25 mm means none in any 300 mm either.
   const effective: Partial<Record<NumKey, number>> = {};
@@ -203,13 +214,26 @@ export function InspectionPanel({ record, step }: { record: JobRecord; step: Ste
   };
 
   const failedItems = verdict.items.filter((i) => !i.ok);
+  // Switching units converts what is typed, so nothing entered is lost.
+  const switchUnit = (u: LengthUnit) => {
+    if (u === lenUnit) return;
+    setTexts((all) => {
+      const next = { ...all };
+      for (const k of Object.keys(NUM) as NumKey[]) {
+        const typed = readPadNumber(all[k].trim());
+        if (all[k].trim() && typed !== null) next[k] = lengthText(toMm(typed, lenUnit), u);
+      }
+      return next;
+    });
+    setLenUnit(u);
+  };
   const setNum = (k: NumKey, t: string) => setTexts((all) => ({ ...all, [k]: t.replace(/[^0-9.,]/g, "") }));
   const numField = (k: NumKey, hint?: string) => (
     <div key={k}>
       <label htmlFor={`obs-${k}`} className="field-label">{NUM[k].label}</label>
       <div className="flex items-center gap-2">
         <input id={`obs-${k}`} className="field-input figures min-h-14 text-xl" inputMode="decimal" autoComplete="off" value={texts[k]} onChange={(e) => setNum(k, e.target.value)} aria-invalid={parsed[k].error ? true : undefined} aria-describedby={`obs-${k}-err`} />
-        <span className="figures font-semibold text-graphite-800">mm</span>
+        <span className="figures font-semibold text-graphite-800">{lenUnit}</span>
       </div>
       <p id={`obs-${k}-err`} className="field-error">{parsed[k].error ?? ""}</p>
       {hint ? <p className="-mt-1 text-sm text-graphite-800">{hint}</p> : null}
@@ -237,9 +261,20 @@ export function InspectionPanel({ record, step }: { record: JobRecord; step: Ste
               </select>
               <p className="field-error" />
             </div>
+            <div className="sm:col-span-2" role="group" aria-labelledby="insp-unit-l">
+              <span id="insp-unit-l" className="field-label">Lengths in</span>
+              <div className="flex gap-2">
+                {(["mm", "in"] as const).map((u) => (
+                  <button key={u} type="button" className={`btn min-h-12 min-w-20 ${lenUnit === u ? "btn-primary" : "btn-quiet"}`} aria-pressed={lenUnit === u} onClick={() => switchUnit(u)} data-testid={`insp-unit-${u}`}>
+                    {u === "mm" ? "millimetres" : "inches"}
+                  </button>
+                ))}
+              </div>
+              <p className="field-error" />
+            </div>
             {numField("materialThicknessMm")}
-            {numField("specifiedLegMm", `The procedure specifies ${spec.sizeMm} mm.`)}
-            {numField("weldLengthMm", `The procedure specifies ${spec.lengthMm} mm.`)}
+            {numField("specifiedLegMm", `The procedure specifies ${lengthShown(spec.sizeMm, lenUnit)}.`)}
+            {numField("weldLengthMm", `The procedure specifies ${lengthShown(spec.lengthMm, lenUnit)}.`)}
           </fieldset>
 
           <ol className="space-y-3" aria-label="Observations">

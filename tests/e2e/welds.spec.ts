@@ -138,6 +138,14 @@ async function observe(page: Page, o: { undercut: string; accumulated?: string }
   await expect(panel.getByLabel("Specified leg")).toHaveValue("6");
   await expect(panel.getByLabel("Weld length")).toHaveValue("80");
   await panel.getByLabel("Material thickness (thinner part)").fill("10");
+  // Lengths may be typed in inches; switching converts what is typed and back without loss.
+  await panel.getByTestId("insp-unit-in").click();
+  await expect(panel.getByLabel("Specified leg")).toHaveValue("0.2362");
+  await expect(panel.getByLabel("Material thickness (thinner part)")).toHaveValue("0.3937");
+  await expect(panel).toContainText("The procedure specifies 0.2362 in.");
+  await panel.getByTestId("insp-unit-mm").click();
+  await expect(panel.getByLabel("Specified leg")).toHaveValue("6");
+  await expect(panel.getByLabel("Material thickness (thinner part)")).toHaveValue("10");
   await answer(page, "cracks", "No");
   await answer(page, "fusionComplete", "Yes");
   await answer(page, "cratersFilled", "Yes");
