@@ -7,7 +7,8 @@ import { JOINT_STATE_LABELS } from "@/lib/jobs/joint";
 import type { InspectionView, JobRecord, JointRound, JointState, PassView, StepView } from "@/lib/jobs/record";
 import { defaultPadUnit, show } from "@/lib/jobs/units";
 import { MEANING_LABELS } from "@/lib/jobs/labels";
-import { criteriaLabel, itemLabel } from "@/lib/traveller/labels";
+import { itemLabel } from "@/lib/traveller/labels";
+import { visualCriteriaLabel } from "@/lib/welding";
 import type { Step } from "@/lib/procedures/schema";
 
 type System = "metric" | "imperial";
@@ -43,6 +44,27 @@ function heatText(p: PassView, system: System) {
   const judged = f?.value ?? p.arcEnergyKJPerMm;
   const main = system === "imperial" ? `${(judged * 25.4).toFixed(1)} kJ/in (${kj(judged)} kJ/mm)` : `${kj(judged)} kJ/mm`;
   return { main, sub: `arc energy ${kj(p.arcEnergyKJPerMm)} · Q ${kj(p.heatInputKJPerMm)} kJ/mm, ${METHOD_WORDS[p.heatInputMethod]}` };
+}
+
+/** What a pass did outside its WPS, and the lead's acceptance of it: the same words in the table and the list. */
+function PassNotes({ p, outside }: { p: PassView; outside: PassView["findings"] }) {
+  return (
+    <>
+      {outside.length ? (
+        <ul className="text-sm font-semibold text-verdict-fail">
+          {outside.map((f) => (
+            <li key={f.field}><span aria-hidden="true">✕ </span>Outside the WPS: {f.message}</li>
+          ))}
+        </ul>
+      ) : null}
+      {p.override ? (
+        <p className="mt-1 rounded border-l-4 border-graphite-700 bg-graphite-50 px-2 py-1 text-sm" data-testid="pass-override">
+          <span aria-hidden="true">◆ </span>
+          <strong>Accepted by lead override</strong> ({p.override.by.name}, <time className="figures" dateTime={p.override.at}>{when(p.override.at)}</time>): {p.override.reason}
+        </p>
+      ) : null}
+    </>
+  );
 }
 
 function PassRows({ p, system, spec }: { p: PassView; system: System; spec: Weld }) {
@@ -91,19 +113,7 @@ function PassRows({ p, system, spec }: { p: PassView; system: System; spec: Weld
         <tr className="align-top">
           <td />
           <td colSpan={cols - 1} className="px-2 pb-2">
-            {outside.length ? (
-              <ul className="text-sm font-semibold text-verdict-fail">
-                {outside.map((f) => (
-                  <li key={f.field}><span aria-hidden="true">✕ </span>Outside the WPS: {f.message}</li>
-                ))}
-              </ul>
-            ) : null}
-            {p.override ? (
-              <p className="mt-1 rounded border-l-4 border-graphite-700 bg-graphite-50 px-2 py-1 text-sm" data-testid="pass-override">
-                <span aria-hidden="true">◆ </span>
-                <strong>Accepted by lead override</strong> ({p.override.by.name}, <time className="figures" dateTime={p.override.at}>{when(p.override.at)}</time>): {p.override.reason}
-              </p>
-            ) : null}
+            <PassNotes p={p} outside={outside} />
           </td>
         </tr>
       ) : null}
@@ -135,19 +145,7 @@ function PassItem({ p, system, spec }: { p: PassView; system: System; spec: Weld
         {verdict.detail && !p.removed ? <span className="figures">{verdict.detail}</span> : null}
       </p>
       <p className={`text-xs text-graphite-700 ${struck}`}>{heat.sub}</p>
-      {outside.length ? (
-        <ul className="text-sm font-semibold text-verdict-fail">
-          {outside.map((f) => (
-            <li key={f.field}><span aria-hidden="true">✕ </span>Outside the WPS: {f.message}</li>
-          ))}
-        </ul>
-      ) : null}
-      {p.override ? (
-        <p className="mt-1 rounded border-l-4 border-graphite-700 bg-graphite-50 px-2 py-1 text-sm" data-testid="pass-override">
-          <span aria-hidden="true">◆ </span>
-          <strong>Accepted by lead override</strong> ({p.override.by.name}, <time className="figures" dateTime={p.override.at}>{when(p.override.at)}</time>): {p.override.reason}
-        </p>
-      ) : null}
+      <PassNotes p={p} outside={outside} />
     </li>
   );
 }
@@ -165,7 +163,7 @@ function Inspection({ i, record }: { i: InspectionView; record: JobRecord }) {
         </span>
       </p>
       <p className="mt-1 text-sm text-graphite-800">
-        Judged by {criteriaLabel(i.criteria)}: the entries {i.judged === "accept" ? "meet" : "fail"} the criteria
+        Judged by {visualCriteriaLabel(i.criteria)}: the entries {i.judged === "accept" ? "meet" : "fail"} the criteria
         {i.judged === "accept" && !accepted ? "; the inspector rejected the joint for the reason in the notes" : ""}.
       </p>
       {rejected.length ? (

@@ -43,16 +43,7 @@ export function MaterialTable({ materials, actions, compact = false }: { materia
                 <td className={`px-3 py-2 ${struck}`}>{MATERIAL_KIND_LABELS[m.kind]}</td>
                 <td className="px-3 py-2">
                   <span className={struck}>{m.description}</span>
-                  {m.correctsId ? (
-                    <span className="block text-sm text-graphite-800">
-                      {m.withdrawn ? "Withdraws" : "Corrects"} #{no.get(m.correctsId) ?? "?"}: {m.reason}
-                    </span>
-                  ) : null}
-                  {m.superseded && by ? (
-                    <span className="block text-sm text-graphite-800" data-testid="superseded-by">
-                      {by.withdrawn ? "Withdrawn" : "Corrected"} by #{no.get(by.id)}: {by.reason}
-                    </span>
-                  ) : null}
+                  <CorrectionNotes m={m} by={by} no={no} />
                 </td>
                 <td className={`px-3 py-2 ${struck}`}>{m.specification || "—"}</td>
                 <td className={`figures whitespace-nowrap px-3 py-2 font-semibold ${struck}`}>{m.heatNumber}</td>
@@ -69,6 +60,24 @@ export function MaterialTable({ materials, actions, compact = false }: { materia
         </tbody>
       </table>
     </div>
+  );
+}
+
+/** Which entry this one corrects, and which entry replaced it: the same words in both layouts. */
+function CorrectionNotes({ m, by, no }: { m: MaterialView; by: MaterialView | undefined; no: Map<string, number> }) {
+  return (
+    <>
+      {m.correctsId ? (
+        <span className="block text-sm text-graphite-800">
+          {m.withdrawn ? "Withdraws" : "Corrects"} #{no.get(m.correctsId) ?? "?"}: {m.reason}
+        </span>
+      ) : null}
+      {m.superseded && by ? (
+        <span className="block text-sm text-graphite-800" data-testid="superseded-by">
+          {by.withdrawn ? "Withdrawn" : "Corrected"} by #{no.get(by.id)}: {by.reason}
+        </span>
+      ) : null}
+    </>
   );
 }
 
@@ -102,8 +111,7 @@ function CompactTable({ materials, no, correctionOf }: { materials: MaterialView
                   {m.specification ? ` · ${m.specification}` : ""}
                   {m.certificate ? <> · certificate <span className="figures">{m.certificate}</span></> : null}
                 </span>
-                {m.correctsId ? <span className="block text-sm text-graphite-800">{m.withdrawn ? "Withdraws" : "Corrects"} #{no.get(m.correctsId) ?? "?"}: {m.reason}</span> : null}
-                {m.superseded && by ? <span className="block text-sm text-graphite-800" data-testid="superseded-by">{by.withdrawn ? "Withdrawn" : "Corrected"} by #{no.get(by.id)}: {by.reason}</span> : null}
+                <CorrectionNotes m={m} by={by} no={no} />
                 <span className="block text-sm text-graphite-700">
                   {m.recordedBy.name} · <time className="figures" dateTime={m.recordedAt}>{when(m.recordedAt)}</time>
                 </span>

@@ -9,13 +9,13 @@ import { SafetyNote } from "@/components/safety-note";
 import type { JobRecord, JointView, PhotoView, StepView } from "@/lib/jobs/record";
 import { readPadNumber } from "@/lib/jobs/units";
 import { PHOTO_MAX_BYTES } from "@/lib/jobs/schemas";
-import { judgeVisual, VISUAL_CRITERIA, type VisualCriteria, type VisualItem, type VisualItemResult, type VisualObservations } from "@/lib/welding";
+import { judgeVisual, VISUAL_CRITERIA, VISUAL_CRITERIA_LABELS, type VisualCriteria, type VisualItem, type VisualItemResult, type VisualObservations } from "@/lib/welding";
 import { visualObservationsSchema } from "@/lib/welding/schema";
 import { apiJson, ApiError, newKey, uploadPhoto } from "./api";
 import { PinDialog } from "./pin-dialog";
 import { useSetRecord } from "./use-job";
 import { Pill, VerdictBox } from "./verdict";
-import { coverageOf, CRITERIA_LABELS, ITEM_LABELS, PassCard, wpsOf, type Weld } from "./weld-control";
+import { coverageOf, ITEM_LABELS, PassCard, wpsOf, type Weld } from "./weld-control";
 
 type BoolKey = "cracks" | "fusionComplete" | "cratersFilled" | "profileAcceptable" | "arcStrikes" | "spatterAcceptable";
 type NumKey = "materialThicknessMm" | "specifiedLegMm" | "weldLengthMm" | "measuredLegMm" | "undersizeLengthMm" | "undercutDepthMm" | "undercutAccumulatedMm" | "porosityMm" | "porosity12Mm";
@@ -195,7 +195,7 @@ export function InspectionPanel({ record, step }: { record: JobRecord; step: Ste
   const acceptWhy = [
     !complete ? `Enter ${missing.length ? missing.join(", ") : "every value as a number"}.` : null,
     crossErrors.length ? crossErrors.join(" ") : null,
-    judged === "reject" ? `The entries fail ${CRITERIA_LABELS[criteria]}: the joint cannot be accepted.` : null,
+    judged === "reject" ? `The entries fail ${VISUAL_CRITERIA_LABELS[criteria]}: the joint cannot be accepted.` : null,
     attached.length === 0 ? "Take at least one photo of the joint as inspected." : null,
   ].filter((x): x is string => !!x);
   const rejectWhy = [
@@ -257,7 +257,7 @@ export function InspectionPanel({ record, step }: { record: JobRecord; step: Ste
             <div className="sm:col-span-2">
               <label htmlFor="insp-criteria" className="field-label">Acceptance criteria</label>
               <select id="insp-criteria" className="field-input min-h-14 text-lg" value={criteria} onChange={(e) => setCriteria(e.target.value as VisualCriteria)} data-testid="insp-criteria">
-                {VISUAL_CRITERIA.map((c) => <option key={c} value={c}>{CRITERIA_LABELS[c]}</option>)}
+                {VISUAL_CRITERIA.map((c) => <option key={c} value={c}>{VISUAL_CRITERIA_LABELS[c]}</option>)}
               </select>
               <p className="field-error" />
             </div>
@@ -333,11 +333,11 @@ export function InspectionPanel({ record, step }: { record: JobRecord; step: Ste
                 {crossErrors.length ? crossErrors.join(" ") : `Still to enter: ${missing.join(", ")}.`}
               </VerdictBox>
             ) : judged === "accept" ? (
-              <VerdictBox tone="pass" title={`Meets ${CRITERIA_LABELS[criteria]}`} testId="inspection-verdict">
+              <VerdictBox tone="pass" title={`Meets ${VISUAL_CRITERIA_LABELS[criteria]}`} testId="inspection-verdict">
                 Every entry is within its limit. {verdict.notes.join(" ")}
               </VerdictBox>
             ) : (
-              <VerdictBox tone="fail" title={`Fails ${CRITERIA_LABELS[criteria]}: reject for repair`} testId="inspection-verdict">
+              <VerdictBox tone="fail" title={`Fails ${VISUAL_CRITERIA_LABELS[criteria]}: reject for repair`} testId="inspection-verdict">
                 <ul className="list-disc pl-5">{failedItems.map((i) => <li key={i.item}><strong>{ITEM_LABELS[i.item]}</strong>: {i.measured} (limit: {i.limit})</li>)}</ul>
               </VerdictBox>
             )}
@@ -441,7 +441,7 @@ export function InspectionPanel({ record, step }: { record: JobRecord; step: Ste
           onSign={sign}
         >
           <div className="mt-3 space-y-1 text-graphite-950" data-testid="inspection-summary">
-            <p><strong>{deciding === "accepted" ? "Accepted" : "Rejected for repair"}</strong> under {CRITERIA_LABELS[criteria]}.</p>
+            <p><strong>{deciding === "accepted" ? "Accepted" : "Rejected for repair"}</strong> under {VISUAL_CRITERIA_LABELS[criteria]}.</p>
             {failedItems.length ? <p>Outside the limit: {failedItems.map((i) => ITEM_LABELS[i.item].toLowerCase()).join(", ")}.</p> : <p>Every entry within its limit.</p>}
             <p>{attached.length} photo{attached.length === 1 ? "" : "s"}{notes.trim() ? ` · notes: ${notes.trim()}` : ""}</p>
           </div>

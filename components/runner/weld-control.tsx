@@ -10,7 +10,7 @@ import { JOINT_STATE_LABELS } from "@/lib/jobs/joint";
 import type { InspectionView, JobRecord, JointRound, JointView, PassView, PhotoView, QualificationSummary, SignOffView, StepView, WpsSummary } from "@/lib/jobs/record";
 import { defaultPadUnit, readPadNumber, show, symbolOf } from "@/lib/jobs/units";
 import type { Step } from "@/lib/procedures/schema";
-import { checkPassAgainstWps, passHeatInput, type PassHeatInputResult, VISUAL_CRITERIA_LABELS, type VisualItem, type WpsCheckResult, type WpsRanges } from "@/lib/welding";
+import { checkPassAgainstWps, passHeatInput, type PassHeatInputResult, visualCriteriaLabel, type VisualItem, type WpsCheckResult, type WpsRanges } from "@/lib/welding";
 import { apiJson, ApiError, newKey } from "./api";
 import { applyKey, NumberPad, PadField, UnitSwitch } from "./number-pad";
 import { storedFrom } from "./pad-state";
@@ -23,7 +23,6 @@ type Field = "volts" | "amps" | "speed" | "bead" | "arcTime" | "energy" | "power
 type Travel = "speed" | "bead";
 type Machine = "none" | "energy" | "power";
 
-export const CRITERIA_LABELS = VISUAL_CRITERIA_LABELS;
 
 export const ITEM_LABELS: Record<VisualItem, string> = {
   cracks: "Cracks",
@@ -252,7 +251,7 @@ export function InspectionResult({ inspection, photos }: { inspection: Inspectio
         <Pill tone={accepted ? "pass" : "fail"}>{accepted ? "Accepted" : "Rejected"}</Pill>
         by {inspection.inspector.name}, {utc(inspection.inspectedAt)}
       </p>
-      <p className="mt-1 text-graphite-950">Criteria: <strong>{CRITERIA_LABELS[inspection.criteria] ?? inspection.criteria}</strong> · judged {inspection.judged}</p>
+      <p className="mt-1 text-graphite-950">Criteria: <strong>{visualCriteriaLabel(inspection.criteria)}</strong> · judged {inspection.judged}</p>
       {failed.length ? (
         <ul className="mt-1 list-disc space-y-1 pl-5 text-graphite-950" data-testid="round-rejected-items">
           {failed.map((i) => (

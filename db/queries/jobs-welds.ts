@@ -19,8 +19,6 @@ import { judgeVisual, visualCriteriaLabel, type VisualVerdict } from "@/lib/weld
 import { appendSignOff, assertJobOpen, guarded, loadRecord, logActivity, refreshJobState } from "./jobs-core";
 import { findStep, verifyPinLogged } from "./jobs-steps";
 
-const criteriaLabel = visualCriteriaLabel;
-
 function weldStepOf(record: JobRecord, stepId: string): StepView & { joint: NonNullable<StepView["joint"]> } {
   const step = findStep(record, stepId);
   if (!step.joint || step.spec.kind !== "weld") throw new AppError("bad_request", "Only weld joints are inspected this way; a hold point is signed from its step.");
@@ -52,7 +50,7 @@ function checkInspectable(record: JobRecord, ctx: ShopContext, stepId: string, b
     const failed = verdict.items.filter((i) => !i.ok);
     throw new AppError(
       "unprocessable",
-      `The joint cannot be accepted under ${criteriaLabel(body.criteria)}: ${failed.map((i) => `${i.item} (${i.measured}; limit: ${i.limit})`).join("; ")}. Reject it for repair.`,
+      `The joint cannot be accepted under ${visualCriteriaLabel(body.criteria)}: ${failed.map((i) => `${i.item} (${i.measured}; limit: ${i.limit})`).join("; ")}. Reject it for repair.`,
       { decision: ["The observations fail the criteria: reject the joint."] },
       { verdict },
     );

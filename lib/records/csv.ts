@@ -1,6 +1,7 @@
 // One job's record as CSV (RFC 4180: CRLF line ends, fields quoted when they hold a comma, quote or line end).
 import type { JobRecord } from "@/lib/jobs/record";
-import { criteriaLabel, itemLabel } from "@/lib/traveller/labels";
+import { itemLabel } from "@/lib/traveller/labels";
+import { visualCriteriaLabel } from "@/lib/welding";
 
 export function csvField(value: unknown): string {
   const text = value === null || value === undefined ? "" : typeof value === "object" ? JSON.stringify(value) : String(value);
@@ -102,7 +103,7 @@ export function recordCsv(record: JobRecord, integrity: { intact: boolean; entri
         "weld",
         `visual inspection of joint ${joint}, round ${i.round}`,
         {
-          criteria: criteriaLabel(i.criteria),
+          criteria: visualCriteriaLabel(i.criteria),
           judged: i.judged,
           rejectedItems: i.items.filter((it) => !it.ok).map((it) => ({ item: itemLabel(it.item), measured: it.measured, limit: it.limit, source: it.source })),
           notes: i.notes,

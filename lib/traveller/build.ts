@@ -5,7 +5,8 @@ import type { InspectionView, JobRecord, PassView, StepView } from "@/lib/jobs/r
 import type { GeometryCapture } from "@/lib/jobs/values";
 import type { TravellerData, TravellerWeldPassInput } from "@/lib/pdf/traveller-data";
 import type { Step } from "@/lib/procedures/schema";
-import { criteriaLabel, itemLabel } from "./labels";
+import { visualCriteriaLabel } from "@/lib/welding";
+import { itemLabel } from "./labels";
 import { formatQuantity, fromSI, preferredUnit, unitSymbol, type Quantity, type UnitSystem } from "@/lib/units";
 
 type Extras = {
@@ -173,7 +174,7 @@ function inspectionOf(i: InspectionView) {
     result: i.decision === "accepted" ? ("accept" as const) : ("reject" as const),
     inspectorName: i.inspector.name,
     at: i.inspectedAt,
-    criteria: criteriaLabel(i.criteria),
+    criteria: visualCriteriaLabel(i.criteria),
     rejected: i.items.filter((it) => !it.ok).map((it) => ({ item: itemLabel(it.item), measured: it.measured.slice(0, 300), limit: it.limit.slice(0, 300) })),
     note: i.notes.slice(0, 1000),
   };

@@ -2,8 +2,6 @@
 // Pure (no server imports) so browser components can use them too.
 import type { VisualItem } from "@/lib/welding";
 
-export { VISUAL_CRITERIA_LABELS as CRITERIA_LABELS, visualCriteriaLabel as criteriaLabel } from "@/lib/welding";
-
 export const ITEM_LABELS: Record<VisualItem, string> = {
   cracks: "cracks",
   fusion: "fusion",

@@ -6,7 +6,7 @@
 import path from "node:path";
 import { request as playwrightRequest, type Browser, type Page } from "@playwright/test";
 import pg from "pg";
-import { insertPublishedProcedure, jobBody } from "../fixtures/jobs/procedure";
+import { gmawWeldStep, insertPublishedProcedure, jobBody } from "../fixtures/jobs/procedure";
 import { DEMO_PASSWORD, DEMO_PIN, expect, signedInAs, test } from "./support";
 
 const BASE = process.env.GUSSET_TEST_URL ?? "http://127.0.0.1:3100";
@@ -15,21 +15,7 @@ const TABLET = { viewport: { width: 1024, height: 768 }, hasTouch: true };
 
 test.use(TABLET);
 
-const weldStep = (over: Record<string, unknown>) => ({
-  kind: "weld",
-  instructions: "Clean to bright metal 25 mm back; tack at the ends first.",
-  signedBy: "welder",
-  photos: { required: false, min: 0 },
-  jointType: "fillet",
-  sizeMm: 6,
-  lengthMm: 80,
-  position: "2F",
-  process: "GMAW",
-  wpsRef: "GUS-GMAW-02",
-  filler: "ER70S-6",
-  minPreheatC: 10,
-  ...over,
-});
+const weldStep = (over: Record<string, unknown>) => gmawWeldStep({ instructions: "Clean to bright metal 25 mm back; tack at the ends first.", ...over });
 
 const ROUNDS_PROCEDURE = { sections: [{ key: "weld", title: "Weld the bracket", steps: [weldStep({ key: "w1", title: "Weld joint W1, bracket to tube", jointId: "W1" })] }] };
 const OVERRIDE_PROCEDURE = {
