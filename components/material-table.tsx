@@ -16,8 +16,8 @@ export function MaterialTable({ materials, actions, compact = false }: { materia
   const correctionOf = new Map(materials.filter((m) => m.correctsId).map((m) => [m.correctsId!, m]));
   if (compact) return <CompactTable materials={materials} no={no} correctionOf={correctionOf} />;
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full min-w-[52rem] text-left" data-testid="materials-table">
+    <div className="relative overflow-x-auto">
+      <table className="w-full min-w-[46rem] text-left" data-testid="materials-table">
         <caption className="sr-only">Material entries in the order they were recorded</caption>
         <thead className="bg-graphite-100 text-sm">
           <tr>
