@@ -26,7 +26,13 @@ function escapeLike(q: string) {
 
 export async function listJobs(shopId: string, q: ListJobsQuery, viewerId: string): Promise<{ rows: JobListRow[]; total: number }> {
   const filters: SQL[] = [eq(job.shopId, shopId)];
-  if (q.q) filters.push(sql`${job.searchText} like ${`%${escapeLike(q.q.toLowerCase())}%`}`);
+  if (q.q) {
+    // Job number, VIN, axle tag and customer (the stored search text), or the name of a person on the job.
+    const like = `%${escapeLike(q.q.toLowerCase())}%`;
+    filters.push(
+      sql`(${job.searchText} like ${like} or exists (select 1 from ${jobAssignment} inner join ${user} on ${user.id} = ${jobAssignment.userId} where ${jobAssignment.jobId} = ${job.id} and lower(${user.name}) like ${like}))`,
+    );
+  }
   if (q.status === "open") filters.push(notInArray(job.status, ["released", "void"]));
   else if (q.status) filters.push(eq(job.status, q.status));
   if (q.assignee) {

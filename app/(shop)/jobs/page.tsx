@@ -25,7 +25,7 @@ export default async function JobsPage({ searchParams }: { searchParams: Promise
       <form className="mb-4 grid gap-3 rounded-lg border border-graphite-200 bg-white p-3 md:grid-cols-3 xl:grid-cols-6" role="search" data-testid="jobs-filters">
         <div className="md:col-span-2">
           <label className="field-label" htmlFor="q">Search</label>
-          <input id="q" name="q" defaultValue={query.q} className="field-input" placeholder="GJ-2026-0012, VIN, axle tag, customer" />
+          <input id="q" name="q" defaultValue={query.q} className="field-input" placeholder="GJ-2026-0012, VIN, axle tag, customer, welder" />
         </div>
         <div>
           <label className="field-label" htmlFor="status">State</label>
