@@ -46,8 +46,9 @@ export function originFacts(req: Request, appUrl: string | null = process.env.AP
   const protocol = forwarded === "https" || forwarded === "http" ? forwarded : new URL(req.url).protocol.replace(":", "");
   return {
     method: req.method,
-    origin: req.headers.get("origin"),
-    secFetchSite: req.headers.get("sec-fetch-site"),
+    // An empty Origin is no origin at all (no browser sends one); it is treated as absent.
+    origin: req.headers.get("origin") || null,
+    secFetchSite: req.headers.get("sec-fetch-site") || null,
     host: req.headers.get("host"),
     protocol,
     appUrl,
