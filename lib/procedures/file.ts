@@ -1,7 +1,8 @@
 // The Gusset procedure file ("gusset-procedure", formatVersion 1): what export writes, import reads and
 // templates/ holds. One zod schema defines it; public/schemas/ carries the JSON Schema generated from it.
 import { z } from "zod";
-import { duplicateMembers, formatPath, type JsonPath } from "./json-scan";
+import { duplicateMembers, formatPath, jsonDepthExceeds, MAX_JSON_DEPTH, type JsonPath } from "./json-scan";
+import { controlCharacterMessage, controlCharacterPaths } from "@/lib/text-safety";
 import { procedureMetaSchema, versionContentSchema, type VersionContent } from "./schema";
 
 export const PROCEDURE_FILE_FORMAT = "gusset-procedure";
@@ -123,6 +124,11 @@ export function parseProcedureFile(text: string): FileParse {
   if (!body.trim()) {
     return { ok: false, status: 400, message: "The file is empty.", problems: [{ path: "", where: "the whole file", message: "The file is empty." }] };
   }
+  // Measured before JSON.parse: nesting no procedure needs would otherwise cost every step after it.
+  if (jsonDepthExceeds(body, MAX_JSON_DEPTH)) {
+    const message = `Arrays and objects are nested more than ${MAX_JSON_DEPTH} levels deep; a procedure file never needs that.`;
+    return { ok: false, status: 400, message: `The file is not a Gusset procedure file: ${message}`, problems: [{ path: "", where: "the whole file", message }] };
+  }
   let data: unknown;
   try {
     data = JSON.parse(body);
@@ -140,6 +146,9 @@ export function parseProcedureFile(text: string): FileParse {
     where: describeWhere(data, d.path.slice(0, -1)),
     message: `"${d.name}" appears more than once in the same object; keep one.`,
   }));
+  for (const c of controlCharacterPaths(data)) {
+    problems.push({ path: formatPath(c.path), where: describeWhere(data, c.path), message: controlCharacterMessage(c.code) });
+  }
   const parsed = procedureFileSchema.safeParse(data);
   if (!parsed.success) {
     for (const issue of parsed.error.issues) {
