@@ -199,7 +199,8 @@ describe("release", () => {
 
 describe("traveller: steering geometry of the released demo job", () => {
   it("prints the before and the after capture from their separate steps, the steering-wheel chart and the road-test note", async () => {
-    const list = await api("/api/jobs?status=released&pageSize=100", { session: lead });
+    // The seeded released job (axle tag AX-0318), not one a test released.
+    const list = await api("/api/jobs?status=released&q=AX-0318&pageSize=100", { session: lead });
     const released = (list.json.jobs as { id: string; number: string }[])[0];
     expect(released).toBeDefined();
     const rec = (await api(`/api/jobs/${released!.id}`, { session: lead })).json;
