@@ -262,7 +262,6 @@ export function SteeringCalculator({
             </div>
           </div>
           <div className="min-w-0 space-y-3">
-            <OptimumCard optimum={optimum!} other={otherOptimum!} units={units} ratio={ratio} rim={ok.input.rimDiameter} />
             {ok.result.holes?.length ? (
               <section aria-labelledby="ranking-h" className="min-w-0 space-y-2" data-testid="ranking-panel">
                 <div className="flex flex-wrap items-center justify-between gap-2">
@@ -302,6 +301,8 @@ export function SteeringCalculator({
                 <p className="text-sm text-graphite-700">Add candidate holes to rank bracket positions.</p>
               </section>
             )}
+            <OptimumCard optimum={optimum!} other={otherOptimum!} units={units} ratio={ratio} rim={ok.input.rimDiameter} />
+
           </div>
           </div>
         ) : null}
