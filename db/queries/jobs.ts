@@ -39,6 +39,7 @@ export async function listJobs(shopId: string, q: ListJobsQuery, viewerId: strin
     const who = q.assignee === "me" ? viewerId : q.assignee;
     filters.push(sql`exists (select 1 from ${jobAssignment} where ${jobAssignment.jobId} = ${job.id} and ${jobAssignment.userId} = ${who})`);
   }
+  if (q.needs === "geometry") filters.push(sql`exists (select 1 from ${jobStep} where ${jobStep.jobId} = ${job.id} and ${jobStep.kind} = 'geometry' and ${jobStep.signedAt} is null)`);
   if (q.dueFrom) filters.push(gte(job.dueDate, q.dueFrom));
   if (q.dueTo) filters.push(lte(job.dueDate, q.dueTo));
   const where = and(...filters);

@@ -196,3 +196,27 @@ describe("release", () => {
     expect(v.json.integrity).toMatchObject({ intact: true, entries: 3 });
   });
 });
+
+describe("traveller: steering geometry of the released demo job", () => {
+  it("prints the before and the after capture from their separate steps, the steering-wheel chart and the road-test note", async () => {
+    // The seeded released job (axle tag AX-0318), not one a test released.
+    const list = await api("/api/jobs?status=released&q=AX-0318&pageSize=100", { session: lead });
+    const released = (list.json.jobs as { id: string; number: string }[])[0];
+    expect(released).toBeDefined();
+    const rec = (await api(`/api/jobs/${released!.id}`, { session: lead })).json;
+    const geo = rec.steps.filter((s: { kind: string }) => s.kind === "geometry");
+    // The seeded bracket procedure captures before and after in two steps, both signed.
+    expect(geo.length).toBeGreaterThanOrEqual(2);
+    expect(geo.every((s: { signed: boolean }) => s.signed)).toBe(true);
+    const pdf = await fetchPdf(released!.id, lead);
+    expect(pdf.status).toBe(200);
+    const { text } = await extractText(await getDocumentProxy(pdf.bytes), { mergePages: true });
+    expect(text).toMatch(/Steering geometry/);
+    expect(text).not.toMatch(/not captured/);
+    // Axle end of the lateral link: 120 mm high before, 180 mm after (the seeded captures, y / z mm).
+    expect(text).toMatch(/480\.0 \/ 120\.0/);
+    expect(text).toMatch(/480\.0 \/ 180\.0/);
+    expect(text).toMatch(/Steering-wheel angle over the travel range/i);
+    expect(text).toMatch(/Road test: by the measured geometry/);
+  });
+});
