@@ -349,3 +349,18 @@ export async function qualityTiles(shopId: string, from: string, to: string) {
   const [fpy, wait, open] = await Promise.all([firstPassYield(r), inspectionWait(r), countOpenNonconformances(shopId)]);
   return { firstPassYield: fpy.overall, waitingNow: wait.waitingNow, oldestWaitingHours: wait.oldestWaitingHours, openNonconformances: open };
 }
+
+/** What the filter form offers: the shop's welders, WPSs and procedures. */
+export async function qualityFilterOptions(shopId: string) {
+  const [welders, wpsList, procedures] = await Promise.all([
+    db()
+      .select({ id: user.id, name: user.name })
+      .from(membership)
+      .innerJoin(user, eq(user.id, membership.userId))
+      .where(and(eq(membership.shopId, shopId), sql`'welder' = any(${membership.roles})`))
+      .orderBy(user.name),
+    db().select({ id: wps.id, reference: wps.reference }).from(wps).where(eq(wps.shopId, shopId)).orderBy(wps.reference),
+    db().select({ id: procedure.id, title: procedure.title }).from(procedure).where(eq(procedure.shopId, shopId)).orderBy(procedure.title),
+  ]);
+  return { welders, wps: wpsList, procedures };
+}
