@@ -22,7 +22,7 @@ function Section({ id, title, csv, file, children }: { id: string; title: string
     <section id={`section-${id}`} className="card p-4" aria-labelledby={`${id}-h`} data-testid={`section-${id}`}>
       <div className="flex flex-wrap items-center justify-between gap-2">
         <h2 id={`${id}-h`} className="font-bold">{title}</h2>
-        <a className="btn btn-quiet" href={csvHref(csv)} download={file} data-testid={`csv-${id}`}>Download CSV</a>
+        <a className="btn btn-quiet min-h-12" href={csvHref(csv)} download={file} data-testid={`csv-${id}`}>Download CSV</a>
       </div>
       <div className="mt-3 grid gap-4 lg:grid-cols-2">{children}</div>
     </section>
@@ -81,18 +81,18 @@ export default async function QualityPage({ searchParams }: { searchParams: Prom
       <form className="card mb-4 flex flex-wrap items-start gap-3 p-4" role="search" action="/quality" data-testid="quality-filters">
         <div>
           <label className="field-label" htmlFor="qfrom">From</label>
-          <input id="qfrom" name="from" type="date" defaultValue={flat.from ?? range.from ?? ""} className="field-input" aria-invalid={errors.from ? true : undefined} />
+          <input id="qfrom" name="from" type="date" defaultValue={flat.from ?? range.from ?? ""} className="field-input min-h-12" aria-invalid={errors.from ? true : undefined} />
           <p className="field-error" data-testid="error-from">{errors.from}</p>
         </div>
         <div>
           <label className="field-label" htmlFor="qto">To</label>
-          <input id="qto" name="to" type="date" defaultValue={flat.to ?? range.to ?? ""} className="field-input" aria-invalid={errors.to ? true : undefined} />
+          <input id="qto" name="to" type="date" defaultValue={flat.to ?? range.to ?? ""} className="field-input min-h-12" aria-invalid={errors.to ? true : undefined} />
           <p className="field-error" data-testid="error-to">{errors.to}</p>
         </div>
         {shopWide ? (
           <div>
             <label className="field-label" htmlFor="qwelder">Welder</label>
-            <select id="qwelder" name="welderId" defaultValue={flat.welderId ?? ""} className="field-input">
+            <select id="qwelder" name="welderId" defaultValue={flat.welderId ?? ""} className="field-input min-h-12">
               <option value="">Every welder</option>
               {options.welders.map((w) => <option key={w.id} value={w.id}>{w.name}</option>)}
             </select>
@@ -101,7 +101,7 @@ export default async function QualityPage({ searchParams }: { searchParams: Prom
         ) : null}
         <div>
           <label className="field-label" htmlFor="qwps">WPS</label>
-          <select id="qwps" name="wpsId" defaultValue={flat.wpsId ?? ""} className="field-input">
+          <select id="qwps" name="wpsId" defaultValue={flat.wpsId ?? ""} className="field-input min-h-12">
             <option value="">Every WPS</option>
             {options.wps.map((w) => <option key={w.id} value={w.id}>{w.reference}</option>)}
           </select>
@@ -109,15 +109,15 @@ export default async function QualityPage({ searchParams }: { searchParams: Prom
         </div>
         <div>
           <label className="field-label" htmlFor="qproc">Procedure</label>
-          <select id="qproc" name="procedureId" defaultValue={flat.procedureId ?? ""} className="field-input max-w-72">
+          <select id="qproc" name="procedureId" defaultValue={flat.procedureId ?? ""} className="field-input min-h-12 max-w-72">
             <option value="">Every procedure</option>
             {options.procedures.map((p) => <option key={p.id} value={p.id}>{p.title}</option>)}
           </select>
           <p className="field-error">{errors.procedureId}</p>
         </div>
         <div className="flex gap-2 self-center">
-          <button className="btn btn-primary" type="submit">Show</button>
-          <Link className="btn btn-quiet" href="/quality">Last 90 days</Link>
+          <button className="btn btn-primary min-h-12" type="submit">Show</button>
+          <Link className="btn btn-quiet min-h-12" href="/quality">Last 90 days</Link>
         </div>
       </form>
       {!f || !fpy ? (
