@@ -71,6 +71,11 @@ function jobAndStepFilters(r: Resolved, jobAlias: string, stepAlias: string | nu
   return sql`${AND(r.procedureId !== null, () => sql`${job}.procedure_id = ${r.procedureId}`)}${AND(r.wpsRef !== null && stepAlias !== null, () => sql`${jointRef(stepAlias!)} = ${r.wpsRef}`)}`;
 }
 
+/** Joins to the job and its step only when a filter needs them: most reads are one table and its index. */
+function filterJoins(r: Resolved, on: { job: string; step: string }): SQL {
+  return sql`${r.procedureId !== null ? sql.raw(` join job on job.id = ${on.job}`) : sql``}${r.wpsRef !== null ? sql.raw(` join job_step s on s.id = ${on.step}`) : sql``}`;
+}
+
 type Num = number | string | null;
 const num = (v: Num): number | null => (v === null || v === undefined ? null : Number(v));
 const round = (v: Num, digits = 1): number | null => {
@@ -86,7 +91,7 @@ async function firstPassYield(r: Resolved): Promise<QualityFigures["firstPassYie
       select i.step_id, i.round, i.decision = 'accepted' as ok, ${jointRef("s")} as ref
       from weld_inspection i
       join job_step s on s.id = i.step_id
-      join job on job.id = i.job_id
+      ${r.procedureId !== null ? sql`join job on job.id = i.job_id` : sql``}
       where i.shop_id = ${r.shopId}
         and not exists (select 1 from weld_inspection e where e.step_id = i.step_id and e.round < i.round)
         ${window(r, sql`i.inspected_at`)}
@@ -123,8 +128,7 @@ async function defects(r: Resolved): Promise<QualityFigures["defects"]> {
     select it->>'item' as criterion, count(*)::int as count
     from weld_inspection i
     cross join lateral jsonb_array_elements(i.items) it
-    join job_step s on s.id = i.step_id
-    join job on job.id = i.job_id
+    ${filterJoins(r, { job: "i.job_id", step: "i.step_id" })}
     where i.shop_id = ${r.shopId} and (it->>'ok')::boolean = false
       ${window(r, sql`i.inspected_at`)}
       ${jobAndStepFilters(r, "job", "s")}
@@ -141,25 +145,26 @@ async function heatInput(r: Resolved): Promise<QualityFigures["heatInput"]> {
     wps_id: string | null; reference: string; at: Date; value: number; limit_kj: number | null; job_number: string; joint_id: string | null;
     pass_number: number; round: number; welder_name: string; total: number;
   }>(sql`
-    select * from (
+    select x.*, job.number as job_number, s.spec->>'jointId' as joint_id, u.name as welder_name from (
       select r.wps_id, coalesce(w.reference, nullif(p.wps_reference, ''), '(no WPS)') as reference, p.recorded_at as at,
         case when r.heat_input_basis = 'iso-q' then p.heat_input_kj_per_mm else p.arc_energy_kj_per_mm end as value,
-        r.heat_input_max_kj_per_mm as limit_kj, job.number as job_number, s.spec->>'jointId' as joint_id, p.pass_number, p.round, u.name as welder_name,
+        r.heat_input_max_kj_per_mm as limit_kj, p.job_id, p.step_id, p.welder_id, p.pass_number, p.round,
         row_number() over (partition by coalesce(r.wps_id::text, p.wps_reference) order by p.recorded_at desc, p.id) as rn,
         (count(*) over (partition by coalesce(r.wps_id::text, p.wps_reference)))::int as total
       from weld_pass p
       left join wps_revision r on r.id = p.wps_revision_id
       left join wps w on w.id = r.wps_id
-      join job on job.id = p.job_id
-      join job_step s on s.id = p.step_id
-      join "user" u on u.id = p.welder_id
+      ${r.procedureId !== null ? sql`join job pj on pj.id = p.job_id` : sql``}
       where p.shop_id = ${r.shopId} and p.removed_at is null
         ${window(r, sql`p.recorded_at`)}
-        ${AND(r.procedureId !== null, () => sql`job.procedure_id = ${r.procedureId}`)}
+        ${AND(r.procedureId !== null, () => sql`pj.procedure_id = ${r.procedureId}`)}
         ${AND(r.wpsId !== null, () => sql`r.wps_id = ${r.wpsId}`)}
         ${AND(r.welderId !== null, () => sql`p.welder_id = ${r.welderId}`)}
     ) x
-    where rn <= ${MAX_HEAT_POINTS}
+    join job on job.id = x.job_id
+    join job_step s on s.id = x.step_id
+    join "user" u on u.id = x.welder_id
+    where x.rn <= ${MAX_HEAT_POINTS}
     order by reference, at, pass_number`);
   const series = new Map<string, QualityFigures["heatInput"][number]>();
   for (const x of rows.rows) {
@@ -190,7 +195,7 @@ async function nonconformances(r: Resolved): Promise<QualityFigures["nonconforma
     from nonconformance n
     left join nonconformance_disposition d on d.nonconformance_id = n.id
     join job on job.id = n.job_id
-    join job_step s on s.id = n.step_id
+    ${r.wpsRef !== null ? sql`join job_step s on s.id = n.step_id` : sql``}
     where n.shop_id = ${r.shopId}
       ${window(r, sql`n.raised_at`)}
       ${jobAndStepFilters(r, "job", "s")}
@@ -223,8 +228,7 @@ async function inspectionWait(r: Resolved): Promise<QualityFigures["inspectionWa
         select extract(epoch from i.inspected_at - so.signed_at) / 3600 as h
         from weld_inspection i
         join sign_off so on so.step_id = i.step_id and so.meaning = 'performed' and coalesce(so.round, 1) = i.round and so.amends_sign_off_id is null
-        join job_step s on s.id = i.step_id
-        join job on job.id = i.job_id
+        ${filterJoins(r, { job: "i.job_id", step: "i.step_id" })}
         where i.shop_id = ${r.shopId}
           ${window(r, sql`i.inspected_at`)}
           ${jobAndStepFilters(r, "job", "s")}
