@@ -83,3 +83,12 @@ describe("CSV beside each chart", () => {
     expect(heat.split("\r\n")[1]).toBe("GUS-GMAW-02,2026-12-01T10:00:00.000Z,1.3,1.2,no,J-1,W2,1,1,A");
   });
 });
+
+describe("navigation", () => {
+  it("Quality is in the menu of a lead, an inspector and an auditor, not of a welder", async () => {
+    const { navFor } = await import("@/lib/nav");
+    const has = (roles: string[]) => navFor(roles, false).some((i) => i.href === "/quality" && i.label === "Quality");
+    expect(["lead", "inspector", "auditor"].map((r) => has([r]))).toEqual([true, true, true]);
+    expect(has(["welder"])).toBe(false);
+  });
+});
