@@ -34,6 +34,9 @@ const PERMISSIONS = {
   "qualification:write": ["lead"],
   "audit:search": ["lead", "inspector", "auditor"],
   "calc:use": ["lead", "welder", "inspector", "auditor"],
+  // Quality figures: a welder sees those of their own work; the others the whole shop's.
+  "quality:read": ["lead", "welder", "inspector", "auditor"],
+  "quality:shop": ["lead", "inspector", "auditor"],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof PERMISSIONS;

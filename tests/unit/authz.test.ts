@@ -25,6 +25,9 @@ const EXPECTED: Record<Action, string[]> = {
   "qualification:write": ["lead"],
   "audit:search": ["lead", "inspector", "auditor"],
   "calc:use": ["lead", "welder", "inspector", "auditor"],
+  // Quality figures: everyone reads them; a welder only those of their own work (scoped by the route).
+  "quality:read": ["lead", "welder", "inspector", "auditor"],
+  "quality:shop": ["lead", "inspector", "auditor"],
 };
 
 const principal = (roles: string[], active = true): Principal => ({ userId: "u1", shopId: "s1", roles, active });
