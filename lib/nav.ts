@@ -16,6 +16,7 @@ export const NAV: NavItem[] = [
   { href: "/wps", label: "WPS library", action: "procedure:read" },
   { href: "/qualifications", label: "Qualifications", action: "job:read" },
   { href: "/calc", label: "Calculators", action: "calc:use" },
+  { href: "/devices", label: "Devices", action: "devices:manage", roles: ["lead"] },
   { href: "/mailbox", label: "Local mailbox", action: "mailbox:read", localMailOnly: true },
 ];
 
