@@ -25,10 +25,11 @@ function httpsRequest(path: string, init: { method?: string; headers?: Record<st
         headers: { host: HTTPS_URL.host, ...init.headers },
       },
       (res) => {
+        const authorized = (res.socket as import("node:tls").TLSSocket).authorized;
         let text = "";
         res.setEncoding("utf8");
         res.on("data", (c: string) => (text += c));
-        res.on("end", () => resolve({ status: res.statusCode ?? 0, headers: res.headers, text, authorized: (res.socket as import("node:tls").TLSSocket).authorized }));
+        res.on("end", () => resolve({ status: res.statusCode ?? 0, headers: res.headers, text, authorized }));
       },
     );
     req.on("error", reject);
