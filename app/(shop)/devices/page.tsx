@@ -54,8 +54,8 @@ export default async function DevicesPage() {
               <p className="mt-1 text-graphite-800">Install it on each device once. Before trusting it, compare its fingerprint with the one the device shows:</p>
               <p className="figures mt-2 break-all rounded-md bg-graphite-50 p-2 text-sm" data-testid="ca-fingerprint">SHA-256 {ca.fingerprint}</p>
               <div className="mt-3 flex flex-wrap gap-2">
-                <a className="btn btn-primary" href="/api/shop-certificate?format=der" download>Download certificate (.crt)</a>
-                <a className="btn btn-quiet" href="/api/shop-certificate?format=pem" download>PEM file (.pem)</a>
+                <a className="btn btn-primary min-h-12" href="/api/shop-certificate?format=der" download>Download certificate (.crt)</a>
+                <a className="btn btn-quiet min-h-12" href="/api/shop-certificate?format=pem" download>PEM file (.pem)</a>
               </div>
               <p className="mt-2 text-sm text-graphite-600">Valid until {ca.validTo}. It stays the same when this computer&apos;s addresses change.</p>
             </>
