@@ -7,7 +7,8 @@ import { parseEnv } from "../lib/env";
 import { buildIfStale } from "./lib/build";
 import { log } from "./lib/log";
 import { postmasterPid } from "./lib/postgres";
-import { startNext, startStack, stopChild, waitForHttp } from "./lib/stack";
+import { stopChild } from "./lib/processes";
+import { startNext, startStack, waitForHttp } from "./lib/stack";
 import { DEMO_PASSWORD, DEMO_PIN, DEMO_SHOPS } from "../db/seed/demo";
 
 const root = path.resolve(import.meta.dirname, "..");

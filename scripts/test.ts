@@ -6,7 +6,8 @@ import path from "node:path";
 import { buildIfStale } from "./lib/build";
 import { log } from "./lib/log";
 import { aptInstall } from "./lib/postgres";
-import { startNext, startStack, stopChild, waitForHttp } from "./lib/stack";
+import { stopChild } from "./lib/processes";
+import { startNext, startStack, waitForHttp } from "./lib/stack";
 
 const root = path.resolve(import.meta.dirname, "..");
 const bin = (name: string) => path.join(root, "node_modules/.bin", name);

@@ -10,6 +10,7 @@ import { seed } from "../../db/seed";
 import { seedStorageFromEnv } from "../../db/seed/photos";
 import { ensureShopCertificate, lanAddress, machineNames, type ShopCertificate } from "./certs";
 import { log } from "./log";
+import { withTimeout } from "./processes";
 import { startLocalPostgres } from "./postgres";
 import { startMailCatcher, startObjectStore } from "./services";
 
@@ -38,14 +39,6 @@ export type Stack = {
 };
 
 const STOP_TIMEOUT_MS = 8_000;
-
-export function withTimeout<T>(promise: Promise<T>, ms: number): Promise<T> {
-  let timer: NodeJS.Timeout | undefined;
-  const late = new Promise<never>((_, reject) => {
-    timer = setTimeout(() => reject(new Error(`gave up after ${ms / 1000} s`)), ms);
-  });
-  return Promise.race([promise, late]).finally(() => clearTimeout(timer));
-}
 
 export async function startStack(o: StackOptions): Promise<Stack> {
   const stops: (() => Promise<void> | void)[] = [];
@@ -146,20 +139,6 @@ export function startNext(root: string, env: NodeJS.ProcessEnv, distDir: string,
     stdio: ["ignore", "inherit", "inherit"],
   });
   return child;
-}
-
-// SIGTERM, then SIGKILL if the process is still there after `ms`.
-export async function stopChild(child: ChildProcess | undefined, ms = 8_000) {
-  if (!child || child.exitCode !== null || child.signalCode !== null) return;
-  const exited = new Promise((r) => child.once("exit", r));
-  child.kill("SIGTERM");
-  try {
-    await withTimeout(exited, ms);
-  } catch {
-    log("app", `the app did not stop within ${ms / 1000} s; killing it`);
-    child.kill("SIGKILL");
-    await withTimeout(exited, 2_000).catch(() => {});
-  }
 }
 
 export async function waitForHttp(url: string, timeoutMs = 60_000) {
