@@ -84,6 +84,7 @@ export async function benchQuality(): Promise<{ name: string; ms: number; detail
     smtpPort: Number(process.env.BENCH_SMTP_PORT ?? 2549),
     s3Port: Number(process.env.BENCH_S3_PORT ?? 4589),
     appPort: 0,
+    https: null,
     secretFile: path.join(dataDir, "auth-secret"),
   });
   try {

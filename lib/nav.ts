@@ -17,6 +17,7 @@ export const NAV: NavItem[] = [
   { href: "/qualifications", label: "Qualifications", action: "job:read" },
   { href: "/quality", label: "Quality", action: "quality:shop", roles: ["lead", "inspector", "auditor"] },
   { href: "/calc", label: "Calculators", action: "calc:use" },
+  { href: "/devices", label: "Devices", action: "devices:manage", roles: ["lead"] },
   { href: "/mailbox", label: "Local mailbox", action: "mailbox:read", localMailOnly: true },
 ];
 

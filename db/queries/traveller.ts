@@ -4,7 +4,7 @@ import sharp from "sharp";
 import { procedureVersion } from "@/db/schema";
 import type { ShopContext } from "@/lib/auth/context";
 import { db } from "@/lib/db";
-import { env } from "@/lib/env";
+import { publicBaseUrl } from "@/lib/net/shop-certificate";
 import { mailHtml, sendMail } from "@/lib/mail";
 import { renderTraveller } from "@/lib/pdf";
 import { buildTravellerData } from "@/lib/traveller/build";
@@ -12,8 +12,9 @@ import { getJobRecord } from "./jobs-core";
 import { photoForServing } from "./jobs-photos";
 import { shownIntegrity, tokenForJob, verifyJobRecord } from "./records";
 
+// The QR is scanned by other devices, so it carries the public address, never this computer's loopback one.
 export function verifyUrlFor(token: string) {
-  return `${env().APP_URL.replace(/\/$/, "")}/verify/${token}`;
+  return `${publicBaseUrl()}/verify/${token}`;
 }
 
 // The whole traveller of one job of the person's shop, as PDF bytes.

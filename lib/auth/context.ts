@@ -22,7 +22,7 @@ export type ShopContext = Omit<Principal, "roles"> & {
 type SessionUser = { id: string; name: string; email: string };
 
 export async function sessionFromHeaders(h: Headers): Promise<SessionUser | null> {
-  const result = await getAuth().api.getSession({ headers: h });
+  const result = await getAuth(h).api.getSession({ headers: h });
   if (!result) return null;
   return { id: result.user.id, name: result.user.name, email: result.user.email };
 }

@@ -18,6 +18,7 @@ const PERMISSIONS = {
   "people:manage": ["lead"],
   "pin:reset": ["lead"],
   "mailbox:read": ["lead"],
+  "devices:manage": ["lead"],
   "procedure:read": ["lead", "welder", "inspector", "auditor"],
   "procedure:write": ["lead"],
   "job:read": ["lead", "welder", "inspector", "auditor"],

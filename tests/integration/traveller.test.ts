@@ -83,13 +83,14 @@ describe("traveller PDF", () => {
   it("carries a QR code (read back from the printed page) whose URL answers with that job", async () => {
     const job = await jobWithTwoSignOffs();
     const url = qrFromFirstPage((await fetchPdf(job.jobId, lead, "letter")).bytes);
-    expect(url).toMatch(new RegExp(`^${BASE_URL}/verify/[A-Za-z0-9_-]{27}$`));
+    // The public address other devices can open (the harness's LAN address), never this computer's loopback one.
+    expect(url).toMatch(new RegExp(`^${process.env.LAN_URL}/verify/[A-Za-z0-9_-]{27}$`));
     const token = url!.split("/verify/")[1]!;
     const anon = await api(`/api/verify/${token}`);
     expect(anon.status).toBe(200);
     expect(anon.json).toMatchObject({ jobNumber: job.number, shop: "Iron Gully 4x4 Fabrication", status: expect.any(String), integrity: { intact: true, entries: 2 } });
     expect(anon.json.integrity.seal).toMatch(/^[0-9a-f]{64}$/);
-    const page = await fetch(url!);
+    const page = await fetch(`${BASE_URL}/verify/${token}`);
     expect(page.status).toBe(200);
     expect(await page.text()).toContain("Record intact");
   });

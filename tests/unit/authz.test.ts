@@ -9,6 +9,7 @@ const EXPECTED: Record<Action, string[]> = {
   "people:manage": ["lead"],
   "pin:reset": ["lead"],
   "mailbox:read": ["lead"],
+  "devices:manage": ["lead"],
   "procedure:read": ["lead", "welder", "inspector", "auditor"],
   "procedure:write": ["lead"],
   "job:read": ["lead", "welder", "inspector", "auditor"],
