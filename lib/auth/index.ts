@@ -4,6 +4,7 @@ import { nextCookies } from "better-auth/next-js";
 import { account, rateLimit, session, user, verification } from "@/db/schema/auth";
 import { db } from "@/lib/db";
 import { env } from "@/lib/env";
+import { refuseSelfRename } from "./name-guard";
 
 function createAuth() {
   const e = env();
@@ -28,6 +29,7 @@ function createAuth() {
       defaultCookieAttributes: { httpOnly: true, sameSite: "lax" },
       ipAddress: { ipAddressHeaders: ["x-forwarded-for"] },
     },
+    hooks: { before: refuseSelfRename },
     plugins: [nextCookies()],
   });
 }
