@@ -12,6 +12,8 @@ export function describeActivity(action: string, detail: Record<string, unknown>
       return `${who} changed roles to ${roles}`;
     case "person.legal_name_set":
       return `${who} set the name printed on sign-offs from “${typeof detail.from === "string" ? detail.from : "?"}” to “${typeof detail.to === "string" ? detail.to : "?"}”`;
+    case "shop.archive_email_set":
+      return `${who} set the seal archive address to ${typeof detail.to === "string" ? detail.to : "the shop's leads"}`;
     case "person.deactivated":
       return `${who} deactivated a member`;
     case "person.reactivated":

@@ -27,3 +27,14 @@ export const acceptInviteApiSchema = z.object({
 });
 
 export const pinApiSchema = z.object({ password: z.string().min(1, "Enter your account password."), pin: z.string().regex(/^\d{4,8}$/, "A PIN is 4 to 8 digits, nothing else.") });
+
+// The shop's archive address for release seals; empty or null clears it (the leads get them instead).
+// A form sends an empty field as nothing at all, so a missing address clears it too.
+export const archiveAddressSchema = z
+  .object({
+    email: z.preprocess(
+      (v) => (v === "" || v === undefined ? null : v),
+      z.string().trim().toLowerCase().email("That is not an e-mail address.").max(254).nullable(),
+    ),
+  })
+  .strict();

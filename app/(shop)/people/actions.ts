@@ -5,7 +5,8 @@ import { resetPin, setActive, setLegalName, setRoles } from "@/db/queries/people
 import { runFormAction, type FormState } from "@/lib/api/action";
 import { inviteAndMail } from "@/lib/people/invite";
 import { inviteSchema, rolesField } from "@/lib/schemas/auth";
-import { legalNameField } from "@/lib/schemas/people";
+import { archiveAddressSchema, legalNameField } from "@/lib/schemas/people";
+import { setArchiveAddress } from "@/db/queries/shop-settings";
 
 export async function invitePerson(_: FormState | undefined, formData: FormData): Promise<FormState> {
   return runFormAction(formData, { schema: inviteSchema, action: "people:manage" }, async (value, ctx) => {
@@ -52,5 +53,13 @@ export async function saveLegalName(_: FormState | undefined, formData: FormData
     await setLegalName({ shopId: ctx.shopId, membershipId: value.membershipId, legalName: value.legalName, actorId: ctx.userId });
     revalidatePath("/people");
     return "Printed name saved; sign-offs already made keep the name they were signed with.";
+  });
+}
+
+export async function saveArchiveAddress(_: FormState | undefined, formData: FormData): Promise<FormState> {
+  return runFormAction(formData, { schema: archiveAddressSchema, action: "shop:manage" }, async (value, ctx) => {
+    await setArchiveAddress({ shopId: ctx.shopId, email: value.email, actorId: ctx.userId });
+    revalidatePath("/people");
+    return value.email ? `Release seals go to ${value.email}.` : "Release seals go to the shop's leads.";
   });
 }
