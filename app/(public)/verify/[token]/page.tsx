@@ -65,6 +65,8 @@ export default async function VerifyPage({ params, searchParams }: { params: Pro
   const paper = sealQuery.success && sealQuery.data.seal ? paperCheck(v.integrityDetail, sealQuery.data.seal) : null;
   return (
     <article className="space-y-4">
+      {/* The paper is the copy outside the database, so its comparison comes first. */}
+      {paper ? <PaperVerdict check={paper} /> : null}
       <section
         data-testid="verdict"
         className={`rounded-lg border-4 p-5 ${intact ? "border-verdict-pass bg-verdict-passbg text-verdict-pass" : "border-verdict-fail bg-verdict-failbg text-verdict-fail"}`}
@@ -75,11 +77,10 @@ export default async function VerifyPage({ params, searchParams }: { params: Pro
         </p>
         <p className="mt-2 text-graphite-900">
           {intact
-            ? `All ${v.integrity.entries} signed entries were recomputed and match the seal.`
+            ? `All ${v.integrity.entries} signed entries were recomputed and match the record's own seal${paper && !paper.agrees ? ", which is not the seal on the paper" : ""}.`
             : `${v.integrityDetail.reason ?? "The chain does not verify."} Entries after it cannot be trusted either.`}
         </p>
       </section>
-      {paper ? <PaperVerdict check={paper} /> : null}
       {!sealQuery.success ? (
         <p className="card p-4" data-testid="paper-unreadable">
           <span aria-hidden="true">▲ </span>The seal in this link cannot be read: {sealQuery.error.issues[0]?.message} The record itself was still checked above.
