@@ -83,8 +83,8 @@ describe("traveller PDF", () => {
   it("carries a QR code (read back from the printed page) whose URL answers with that job", async () => {
     const job = await jobWithTwoSignOffs();
     const url = qrFromFirstPage((await fetchPdf(job.jobId, lead, "letter")).bytes);
-    expect(url).toMatch(new RegExp(`^${BASE_URL}/verify/[A-Za-z0-9_-]{27}$`));
-    const token = url!.split("/verify/")[1]!;
+    expect(url).toMatch(new RegExp(`^${BASE_URL}/verify/[A-Za-z0-9_-]{27}\\?seal=[0-9a-f]{16}$`));
+    const token = new URL(url!).pathname.split("/verify/")[1]!;
     const anon = await api(`/api/verify/${token}`);
     expect(anon.status).toBe(200);
     expect(anon.json).toMatchObject({ jobNumber: job.number, shop: "Iron Gully 4x4 Fabrication", status: expect.any(String), integrity: { intact: true, entries: 2 } });
