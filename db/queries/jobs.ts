@@ -325,7 +325,7 @@ export async function releaseJob(ctx: ShopContext, jobId: string, pin: string): 
           shopId: ctx.shopId,
           jobId,
           userId: ctx.userId,
-          printedName: ctx.user.name,
+          printedName: ctx.legalName,
           role: "lead",
           meaning: "released",
           content,

@@ -14,6 +14,8 @@ export type MemberRow = {
   membershipId: string;
   userId: string;
   name: string;
+  /** printed on this person's sign-offs in this shop */
+  legalName: string;
   email: string;
   roles: Role[];
   active: boolean;
@@ -27,6 +29,7 @@ const memberColumns = {
   membershipId: membership.id,
   userId: user.id,
   name: user.name,
+  legalName: membership.legalName,
   email: user.email,
   roles: membership.roles,
   active: membership.active,
@@ -40,7 +43,7 @@ export async function listMembers(shopId: string, opts: { q?: string; page: numb
   if (!opts.includeInactive) filters.push(eq(membership.active, true));
   if (opts.q) {
     const like = `%${opts.q.replace(/[%_\\]/g, (c) => `\\${c}`)}%`;
-    filters.push(or(ilike(user.name, like), ilike(user.email, like))!);
+    filters.push(or(ilike(user.name, like), ilike(membership.legalName, like), ilike(user.email, like))!);
   }
   const where = and(...filters);
   const [rows, [total]] = await Promise.all([
@@ -144,9 +147,11 @@ export async function acceptInvitation(args: { token: string; name?: string; pas
       .where(and(eq(invitation.id, inv.id), isNull(invitation.acceptedAt)))
       .returning({ id: invitation.id });
     if (!updated.length) throw new AppError("conflict", "This invitation was used a moment ago.");
+    // The printed name starts as the account's name; a lead corrects it on the People page.
+    const [named] = await tx.select({ name: user.name }).from(user).where(eq(user.id, userId));
     await tx
       .insert(membership)
-      .values({ shopId: inv.shopId, userId, roles: inv.roles })
+      .values({ shopId: inv.shopId, userId, roles: inv.roles, legalName: named?.name ?? args.name ?? inv.email })
       .onConflictDoUpdate({ target: [membership.shopId, membership.userId], set: { roles: inv.roles, active: true, deactivatedAt: null } });
     await tx.insert(shopActivity).values({ shopId: inv.shopId, actorId: userId, action: "person.joined", detail: { email: inv.email, roles: inv.roles } });
     return { shopId: inv.shopId, userId };
@@ -199,6 +204,26 @@ export async function setActive(args: { shopId: string; membershipId: string; ac
     // A deactivated person is signed out everywhere at once, not when their sessions run out; they can sign
     // in again for any other shop they still belong to.
     if (!args.active) await tx.delete(session).where(eq(session.userId, target.userId));
+  });
+}
+
+// A lead sets the name printed on a member's sign-offs from now on; sign-offs already made keep theirs.
+export async function setLegalName(args: { shopId: string; membershipId: string; legalName: string; actorId: string }) {
+  await db().transaction(async (tx) => {
+    const [target] = await tx
+      .select({ id: membership.id, userId: membership.userId, legalName: membership.legalName })
+      .from(membership)
+      .where(and(eq(membership.id, args.membershipId), eq(membership.shopId, args.shopId)))
+      .for("update");
+    if (!target) throw new AppError("not_found", "Person not found in this shop.");
+    if (target.legalName === args.legalName) return;
+    await tx.update(membership).set({ legalName: args.legalName }).where(and(eq(membership.id, target.id), eq(membership.shopId, args.shopId)));
+    await tx.insert(shopActivity).values({
+      shopId: args.shopId,
+      actorId: args.actorId,
+      action: "person.legal_name_set",
+      detail: { userId: target.userId, from: target.legalName, to: args.legalName },
+    });
   });
 }
 

@@ -15,6 +15,8 @@ export type ShopContext = Omit<Principal, "roles"> & {
   shop: { id: string; name: string; slug: string; continuityCode: "asme-ix" | "aws-d1.1" };
   roles: Role[];
   membershipId: string;
+  /** the membership's legal name: what sign-offs print (a lead sets it; the account's own name never does) */
+  legalName: string;
   unitSystem: "metric" | "imperial";
   shops: { id: string; name: string }[];
 };
@@ -34,6 +36,7 @@ export async function shopContextFor(user: SessionUser, wantedShopId: string | u
     .select({
       membershipId: membership.id,
       roles: membership.roles,
+      legalName: membership.legalName,
       active: membership.active,
       unitSystem: membership.unitSystem,
       shopId: shop.id,
@@ -55,6 +58,7 @@ export async function shopContextFor(user: SessionUser, wantedShopId: string | u
     user,
     shop: { id: row.shopId, name: row.shopName, slug: row.shopSlug, continuityCode: row.continuityCode },
     membershipId: row.membershipId,
+    legalName: row.legalName,
     unitSystem: row.unitSystem,
     shops: rows.map((r) => ({ id: r.shopId, name: r.shopName })),
   };

@@ -8,6 +8,7 @@ import { env } from "@/lib/env";
 import { CLIENT_ADDRESS_HEADER, usesSecureCookies } from "@/lib/net/addresses";
 import { clearSignInFailures, clientAddress, recordSignInFailure, signInWait, type SignInLimits } from "@/lib/rate-limit";
 import { endOtherSessionsOnPasswordChange } from "./password-change";
+import { refuseSelfRename } from "./name-guard";
 
 function signInLimits(): SignInLimits {
   const e = env();
@@ -55,6 +56,7 @@ function createAuth(secureCookies: boolean) {
     },
     hooks: {
       before: createAuthMiddleware(async (ctx) => {
+        refuseSelfRename(ctx);
         const passwordChange = endOtherSessionsOnPasswordChange(ctx);
         if (passwordChange) return passwordChange;
         if (ctx.path !== "/sign-in/email") return;

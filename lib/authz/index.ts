@@ -16,6 +16,7 @@ const PERMISSIONS = {
   "shop:read": ["lead", "welder", "inspector", "auditor"],
   "people:read": ["lead"],
   "people:manage": ["lead"],
+  "shop:manage": ["lead"],
   "pin:reset": ["lead"],
   "mailbox:read": ["lead"],
   "devices:manage": ["lead"],

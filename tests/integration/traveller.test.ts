@@ -83,9 +83,10 @@ describe("traveller PDF", () => {
   it("carries a QR code (read back from the printed page) whose URL answers with that job", async () => {
     const job = await jobWithTwoSignOffs();
     const url = qrFromFirstPage((await fetchPdf(job.jobId, lead, "letter")).bytes);
-    // The public address other devices can open (the harness's LAN address), never this computer's loopback one.
-    expect(url).toMatch(new RegExp(`^${process.env.LAN_URL}/verify/[A-Za-z0-9_-]{27}$`));
-    const token = url!.split("/verify/")[1]!;
+    // The public address other devices can open (the harness's LAN address), never this computer's loopback one;
+    // it carries the first digits of the seal printed on the paper.
+    expect(url).toMatch(new RegExp(`^${process.env.LAN_URL}/verify/[A-Za-z0-9_-]{27}\?seal=[0-9a-f]{16}$`));
+    const token = new URL(url!).pathname.split("/verify/")[1]!;
     const anon = await api(`/api/verify/${token}`);
     expect(anon.status).toBe(200);
     expect(anon.json).toMatchObject({ jobNumber: job.number, shop: "Iron Gully 4x4 Fabrication", status: expect.any(String), integrity: { intact: true, entries: 2 } });
@@ -113,8 +114,11 @@ describe("verify and the seal", () => {
     const job = await jobWithTwoSignOffs();
     const token = await tokenOf(job.jobId);
     const anon = await api(`/api/verify/${token}`);
-    expect(Object.keys(anon.json).sort()).toEqual(["integrity", "jobNumber", "releasedAt", "shop", "status"]);
-    for (const secret of [job.customerName, "test@customer.example", "1M8GDM9AXKP042788", "Mick Tamsin", "Rosa Lindqvist", job.axleTag]) {
+    expect(Object.keys(anon.json).sort()).toEqual(["axleTag", "integrity", "jobNumber", "releasedAt", "shop", "status", "vinLast6"]);
+    // The housing's tag and the VIN's tail let anyone see a traveller moved to another axle; nothing personal.
+    expect(anon.json.axleTag).toBe(job.axleTag);
+    expect(anon.json.vinLast6).toBe("042788");
+    for (const secret of [job.customerName, "test@customer.example", "1M8GDM9AXKP042788", "Mick Tamsin", "Rosa Lindqvist"]) {
       expect(anon.text).not.toContain(secret);
     }
     const page = await (await fetch(`${BASE_URL}/verify/${token}`)).text();

@@ -7,6 +7,7 @@ const EXPECTED: Record<Action, string[]> = {
   "shop:read": ["lead", "welder", "inspector", "auditor"],
   "people:read": ["lead"],
   "people:manage": ["lead"],
+  "shop:manage": ["lead"],
   "pin:reset": ["lead"],
   "mailbox:read": ["lead"],
   "devices:manage": ["lead"],

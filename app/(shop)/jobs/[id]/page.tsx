@@ -9,6 +9,7 @@ import { SignOffList } from "@/components/runner/sign-off-list";
 import { StatusBadge } from "@/components/status-badge";
 import { jobActivityPage, jobFormOptions } from "@/db/queries/jobs";
 import { getJobRecord } from "@/db/queries/jobs-core";
+import { verifyJobRecord } from "@/db/queries/records";
 import { can } from "@/lib/authz";
 import { requireShop } from "@/lib/auth/context";
 import { AppError } from "@/lib/errors";
@@ -59,6 +60,8 @@ export default async function JobPage({ params, searchParams }: { params: Promis
     throw error;
   }
   const j = record.job;
+  // The screen shows signed values from the sealed sign-offs; a stored row that no longer agrees is named here.
+  const integrity = await verifyJobRecord(j.id);
   const state = JOB_STATE_LABELS[j.status];
   const pct = j.stepsTotal ? Math.round((j.stepsSigned / j.stepsTotal) * 100) : 0;
   const open = j.status !== "released" && j.status !== "void";
@@ -68,6 +71,12 @@ export default async function JobPage({ params, searchParams }: { params: Promis
       <PageHeader title={j.number} lead={`${j.customerName} · ${[j.vehicleYear, j.vehicleMakeModel].filter(Boolean).join(" ")} · axle ${j.axleTag}`}>
         <Link href={`/run/${j.id}`} className="btn btn-primary min-h-12 px-5" data-testid="open-runner">{open ? "Open checklist" : "View checklist"}</Link>
       </PageHeader>
+      {!integrity.intact ? (
+        <section className="mb-4 rounded-lg border-4 border-verdict-fail bg-verdict-failbg p-4 text-verdict-fail" data-testid="record-altered">
+          <p className="flex items-center gap-2 text-xl font-bold"><span aria-hidden="true">✕</span>Record altered at entry {integrity.firstBrokenSeq ?? "?"}</p>
+          <p className="mt-1 text-graphite-900">{integrity.reason ?? "The record chain does not verify."} Signed values on this page are the ones sealed at signing.</p>
+        </section>
+      ) : null}
       <div className="grid gap-4 lg:grid-cols-[1fr_20rem]">
         <section className="card p-4" aria-labelledby="hdr-h">
           <h2 id="hdr-h" className="sr-only">Job details</h2>
