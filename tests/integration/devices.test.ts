@@ -2,41 +2,11 @@
 // and sign-in limits keyed by the socket's address.
 import { randomUUID, X509Certificate } from "node:crypto";
 import fs from "node:fs";
-import https from "node:https";
 import { describe, expect, it } from "vitest";
-import { BASE_URL, DEMO_PASSWORD, fetchFrom, freshIp, signIn } from "./support";
+import { BASE_URL, DEMO_PASSWORD, fetchFrom, freshIp, HTTPS_URL, httpsRequest, signIn } from "./support";
 
-const HTTPS_URL = new URL(process.env.GUSSET_TEST_HTTPS_URL ?? "https://shop-pc.test:3543");
 const HTTP_PORT = new URL(BASE_URL).port;
 const CA = fs.readFileSync(process.env.SHOP_CA_FILE!, "utf8");
-
-// HTTPS to the app by its LAN name (connected to 127.0.0.1, as the name would resolve on the shop's network),
-// trusting only the shop's authority, as a tablet with the certificate installed would.
-function httpsRequest(path: string, init: { method?: string; headers?: Record<string, string>; body?: string } = {}) {
-  return new Promise<{ status: number; headers: Record<string, string | string[] | undefined>; text: string; authorized: boolean }>((resolve, reject) => {
-    const req = https.request(
-      {
-        host: "127.0.0.1",
-        port: Number(HTTPS_URL.port),
-        servername: HTTPS_URL.hostname,
-        path,
-        method: init.method ?? "GET",
-        ca: CA,
-        headers: { host: HTTPS_URL.host, ...init.headers },
-      },
-      (res) => {
-        const authorized = (res.socket as import("node:tls").TLSSocket).authorized;
-        let text = "";
-        res.setEncoding("utf8");
-        res.on("data", (c: string) => (text += c));
-        res.on("end", () => resolve({ status: res.statusCode ?? 0, headers: res.headers, text, authorized }));
-      },
-    );
-    req.on("error", reject);
-    if (init.body) req.write(init.body);
-    req.end();
-  });
-}
 
 const signInBody = (email: string, password = DEMO_PASSWORD) => JSON.stringify({ email, password });
 

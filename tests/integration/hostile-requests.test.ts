@@ -1,7 +1,7 @@
 import fs from "node:fs";
 import { beforeAll, describe, expect, it } from "vitest";
 import { insertPublishedProcedure, jobBody, TEST_PROCEDURE_CONTENT } from "../fixtures/jobs/procedure";
-import { api, BASE_URL, freshIp, session, signIn, waitFor, withDb, type Session } from "./support";
+import { api, BASE_URL, freshIp, httpsRequest, session, signIn, waitFor, withDb, type Session } from "./support";
 
 type Rec = Record<string, any>;
 let lead: Session;
@@ -204,10 +204,13 @@ describe("security headers", () => {
     expect(r.headers.get("content-security-policy")).toContain("default-src 'none'");
     expect(r.headers.get("permissions-policy")).toContain("camera=()");
     expect(r.headers.get("strict-transport-security")).toBeNull();
-    const overTls = await fetch(`${BASE_URL}/api/health`, { headers: { "x-forwarded-proto": "https" } });
-    expect(overTls.headers.get("strict-transport-security")).toMatch(/max-age=\d+/);
-    const page = await fetch(`${BASE_URL}/sign-in`, { headers: { "x-forwarded-proto": "https" } });
-    expect(page.headers.get("strict-transport-security")).toMatch(/max-age=\d+/);
+    // A client's own x-forwarded-proto is not believed; HTTPS is the shop certificate's port.
+    const claimed = await fetch(`${BASE_URL}/api/health`, { headers: { "x-forwarded-proto": "https" } });
+    expect(claimed.headers.get("strict-transport-security")).toBeNull();
+    const overTls = await httpsRequest("/api/health");
+    expect(overTls.headers["strict-transport-security"]).toMatch(/max-age=\d+/);
+    const page = await httpsRequest("/sign-in");
+    expect(page.headers["strict-transport-security"]).toMatch(/max-age=\d+/);
   });
 });
 

@@ -1,6 +1,8 @@
 // Talks to the app that `npm test` started (BASE_URL) and to its throwaway database.
 import { randomInt } from "node:crypto";
+import fs from "node:fs";
 import http from "node:http";
+import https from "node:https";
 import pg from "pg";
 
 export const BASE_URL = process.env.GUSSET_TEST_URL ?? "http://127.0.0.1:3100";
@@ -89,4 +91,36 @@ export async function waitFor<T>(probe: () => Promise<T | null | undefined>, tim
     if (Date.now() > deadline) throw new Error("timed out waiting");
     await new Promise((r) => setTimeout(r, 200));
   }
+}
+
+export const HTTPS_URL = new URL(process.env.GUSSET_TEST_HTTPS_URL ?? "https://shop-pc.test:3543");
+let ca: string | undefined; // read at first use: the harness writes it before the tests run
+const shopCa = () => (ca ??= fs.readFileSync(process.env.SHOP_CA_FILE!, "utf8"));
+
+// HTTPS to the app by its LAN name (connected to 127.0.0.1, as the name would resolve on the shop's network),
+// trusting only the shop's authority, as a tablet with the certificate installed would.
+export function httpsRequest(path: string, init: { method?: string; headers?: Record<string, string>; body?: string } = {}) {
+  return new Promise<{ status: number; headers: Record<string, string | string[] | undefined>; text: string; authorized: boolean }>((resolve, reject) => {
+    const req = https.request(
+      {
+        host: "127.0.0.1",
+        port: Number(HTTPS_URL.port),
+        servername: HTTPS_URL.hostname,
+        path,
+        method: init.method ?? "GET",
+        ca: shopCa(),
+        headers: { host: HTTPS_URL.host, ...init.headers },
+      },
+      (res) => {
+        const authorized = (res.socket as import("node:tls").TLSSocket).authorized;
+        let text = "";
+        res.setEncoding("utf8");
+        res.on("data", (c: string) => (text += c));
+        res.on("end", () => resolve({ status: res.statusCode ?? 0, headers: res.headers, text, authorized }));
+      },
+    );
+    req.on("error", reject);
+    if (init.body) req.write(init.body);
+    req.end();
+  });
 }

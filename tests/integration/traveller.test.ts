@@ -85,7 +85,7 @@ describe("traveller PDF", () => {
     const url = qrFromFirstPage((await fetchPdf(job.jobId, lead, "letter")).bytes);
     // The public address other devices can open (the harness's LAN address), never this computer's loopback one;
     // it carries the first digits of the seal printed on the paper.
-    expect(url).toMatch(new RegExp(`^${process.env.LAN_URL}/verify/[A-Za-z0-9_-]{27}\?seal=[0-9a-f]{16}$`));
+    expect(url).toMatch(new RegExp(`^${process.env.LAN_URL}/verify/[A-Za-z0-9_-]{27}\\?seal=[0-9a-f]{16}$`));
     const token = new URL(url!).pathname.split("/verify/")[1]!;
     const anon = await api(`/api/verify/${token}`);
     expect(anon.status).toBe(200);

@@ -1,5 +1,6 @@
 import { timingSafeEqual } from "node:crypto";
 import { NextResponse } from "next/server";
+import { errorResponse } from "@/lib/api/route";
 import { env } from "@/lib/env";
 import { flushOutbox } from "@/lib/mail";
 
@@ -12,5 +13,9 @@ export async function POST(req: Request) {
   if (given.length !== secret.length || !timingSafeEqual(given, secret)) {
     return NextResponse.json({ error: { code: "not_found", message: "Not found." } }, { status: 404 });
   }
-  return NextResponse.json(await flushOutbox());
+  try {
+    return NextResponse.json(await flushOutbox());
+  } catch (error) {
+    return errorResponse(error);
+  }
 }
