@@ -88,3 +88,25 @@ function describe(mime: string): string {
   if (mime === "application/zip" || mime.includes("compressed")) return "an archive";
   return `of type ${mime}`;
 }
+
+/**
+ * A weld-map image: a photo or drawing judged and re-encoded like a job photo. SVG is refused (it can carry
+ * script and outside references); a PDF is refused with how to get an image of its page instead.
+ */
+export async function processMapImage(bytes: Buffer): Promise<ProcessedPhoto> {
+  const head = bytes.subarray(0, 512).toString("utf8").replace(/^\uFEFF/, "").trimStart().toLowerCase();
+  if (head.startsWith("<") && (head.includes("<svg") || head.startsWith("<?xml"))) {
+    throw new AppError("unsupported_media_type", "SVG drawings are not taken (they can carry scripts). Save the drawing as PNG or JPEG, or draw it in Gusset.");
+  }
+  if ((await sniffImageType(bytes)) === "application/pdf") {
+    throw new AppError("unsupported_media_type", "PDF pages are not turned into images here yet. Save the drawing's page as PNG or JPEG and upload that.");
+  }
+  return processPhoto(bytes);
+}
+
+/** A drawing made in Gusset: SVG text built by lib/weld-map drawingSvg from checked shapes, rendered and re-encoded. */
+export async function renderDrawing(svg: string): Promise<ProcessedPhoto> {
+  const png = await sharp(Buffer.from(svg), { limitInputPixels: MAX_PIXELS }).png().toBuffer();
+  const processed = await processPhoto(png);
+  return { ...processed, originalType: "image/svg+xml" };
+}
