@@ -12,6 +12,8 @@ const BENCHES: { file: string; fn: string; targetMs?: number }[] = [
   // DESIGN.md: 1,000 heave points × 50 candidate holes under 20 ms.
   { file: "geometry.ts", fn: "benchGeometry", targetMs: 20 },
   { file: "traveller.ts", fn: "benchTraveller" },
+  // With 10,000 jobs, at most 3× the time at the demo's size (each figure carries its own target).
+  { file: "quality.ts", fn: "benchQuality" },
 ];
 
 function isFigure(x: unknown): x is Figure {

@@ -10,6 +10,10 @@ export function describeActivity(action: string, detail: Record<string, unknown>
       return `${who} joined as ${roles}`;
     case "person.roles_set":
       return `${who} changed roles to ${roles}`;
+    case "person.legal_name_set":
+      return `${who} set the name printed on sign-offs from “${typeof detail.from === "string" ? detail.from : "?"}” to “${typeof detail.to === "string" ? detail.to : "?"}”`;
+    case "shop.archive_email_set":
+      return `${who} set the seal archive address to ${typeof detail.to === "string" ? detail.to : "the shop's leads"}`;
     case "person.deactivated":
       return `${who} deactivated a member`;
     case "person.reactivated":

@@ -34,3 +34,40 @@ export class AppError extends Error {
     return { error: { code: this.code, message: this.message, ...(this.fields ? { fields: this.fields } : {}), ...this.extra } };
   }
 }
+
+// Seconds a client should wait before retrying while the database cannot be reached.
+export const DATABASE_RETRY_AFTER_SECONDS = 5;
+
+// Node's socket errors and PostgreSQL's "cannot serve you now" states (SQLSTATE class 08 connection
+// exceptions; 57P01–57P03 shutdown and start-up; 53300 too many connections).
+const NETWORK_CODES = new Set(["ECONNREFUSED", "ECONNRESET", "ETIMEDOUT", "EPIPE", "ENOTFOUND", "EHOSTUNREACH", "ENETUNREACH", "EAI_AGAIN"]);
+const PG_UNAVAILABLE = /^(08...|57P0[123]|53300)$/;
+const POOL_MESSAGES = [
+  "Connection terminated",
+  "timeout exceeded when trying to connect",
+  "Client has encountered a connection error",
+  "Cannot use a pool after calling end",
+  "the database system is starting up",
+  "the database system is shutting down",
+];
+
+/**
+ * True when an error (or anything it wraps: drizzle puts the driver's error in `cause`, a refused connection
+ * to a host with several addresses is an AggregateError) says the database could not be reached, as opposed
+ * to a query the database refused.
+ */
+export function isDatabaseUnavailable(error: unknown): boolean {
+  const seen = new Set<unknown>();
+  const queue: unknown[] = [error];
+  while (queue.length) {
+    const e = queue.shift();
+    if (!e || typeof e !== "object" || seen.has(e)) continue;
+    seen.add(e);
+    const { code, message, cause, errors } = e as { code?: unknown; message?: unknown; cause?: unknown; errors?: unknown };
+    if (typeof code === "string" && (NETWORK_CODES.has(code) || PG_UNAVAILABLE.test(code))) return true;
+    if (typeof message === "string" && POOL_MESSAGES.some((m) => message.includes(m))) return true;
+    queue.push(cause);
+    if (Array.isArray(errors)) queue.push(...errors);
+  }
+  return false;
+}

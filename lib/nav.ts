@@ -15,7 +15,9 @@ export const NAV: NavItem[] = [
   { href: "/people", label: "People", action: "people:read" },
   { href: "/wps", label: "WPS library", action: "procedure:read" },
   { href: "/qualifications", label: "Qualifications", action: "job:read" },
+  { href: "/quality", label: "Quality", action: "quality:shop", roles: ["lead", "inspector", "auditor"] },
   { href: "/calc", label: "Calculators", action: "calc:use" },
+  { href: "/devices", label: "Devices", action: "devices:manage", roles: ["lead"] },
   { href: "/mailbox", label: "Local mailbox", action: "mailbox:read", localMailOnly: true },
 ];
 

@@ -6,6 +6,7 @@ import path from "node:path";
 import { buildIfStale } from "./lib/build";
 import { log } from "./lib/log";
 import { aptInstall } from "./lib/postgres";
+import { stopChild } from "./lib/processes";
 import { startNext, startStack, waitForHttp } from "./lib/stack";
 
 const root = path.resolve(import.meta.dirname, "..");
@@ -67,6 +68,7 @@ async function main() {
   if (runStage("integration") || runStage("e2e")) {
     const dataDir = path.join(root, ".data", `test-${process.pid}`);
     const appPort = Number(process.env.TEST_APP_PORT ?? 3100);
+    const httpsPort = Number(process.env.TEST_HTTPS_PORT ?? 3543);
     process.env.PG_FSYNC = "off"; // a throwaway cluster need not survive a power cut
     const stack = await startStack({
       root,
@@ -76,11 +78,16 @@ async function main() {
       s3Port: Number(process.env.TEST_S3_PORT ?? 4570),
       appPort,
       secretFile: path.join(dataDir, "auth-secret"),
+      // A made-up LAN name the browser tests map to 127.0.0.1, as a tablet would reach the shop computer.
+      https: { port: httpsPort, extraNames: ["shop-pc.test"] },
     });
     const testEnv: NodeJS.ProcessEnv = {
       ...stack.env,
       APP_URL: `http://127.0.0.1:${appPort}`,
+      BIND_ADDRESS: "127.0.0.1",
       GUSSET_TEST_URL: `http://127.0.0.1:${appPort}`,
+      GUSSET_TEST_HTTPS_URL: `https://shop-pc.test:${httpsPort}`,
+      LAN_URL: `https://shop-pc.test:${httpsPort}`,
       ADMIN_DATABASE_URL: stack.adminDatabaseUrl ?? "",
     };
     let app: ReturnType<typeof startNext> | undefined;
@@ -105,10 +112,7 @@ async function main() {
     } catch (error) {
       failures.push(`test stack: ${(error as Error).message}`);
     } finally {
-      if (app && app.exitCode === null) {
-        app.kill("SIGTERM");
-        await new Promise((r) => app!.once("exit", r));
-      }
+      await stopChild(app);
       await stack.stop();
       if (!process.env.KEEP_TEST_DATA) spawnSync("rm", ["-rf", dataDir]);
     }

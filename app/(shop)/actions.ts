@@ -1,8 +1,9 @@
 "use server";
-import { cookies } from "next/headers";
+import { cookies, headers } from "next/headers";
 import { redirect } from "next/navigation";
 import { z } from "zod";
 import { homePathFor } from "@/lib/authz";
+import { secureCookiesFor } from "@/lib/auth";
 import { getSessionUser, SHOP_COOKIE, shopContextFor } from "@/lib/auth/context";
 
 const switchSchema = z.object({ shopId: z.string().uuid() });
@@ -15,6 +16,6 @@ export async function switchShop(formData: FormData) {
   if (!parsed.success) redirect("/");
   const ctx = await shopContextFor(user, parsed.data.shopId);
   if (!ctx || ctx.shop.id !== parsed.data.shopId) redirect("/");
-  (await cookies()).set(SHOP_COOKIE, ctx.shop.id, { httpOnly: true, sameSite: "lax", path: "/", secure: process.env.SECURE_COOKIES !== "off" });
+  (await cookies()).set(SHOP_COOKIE, ctx.shop.id, { httpOnly: true, sameSite: "lax", path: "/", secure: secureCookiesFor(await headers()) });
   redirect(homePathFor(ctx.roles));
 }

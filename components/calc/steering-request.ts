@@ -8,6 +8,11 @@ import { LIMITS } from "@/lib/geometry";
 import { fromSI, preferredUnit } from "@/lib/units";
 
 export type PointText = { y: string; z: string };
+/** Which side of the vehicle a joint is on, as the person at the vehicle says it. */
+export type Side = "driver" | "passenger";
+/** A joint as a fabricator measures it: up from the floor, across from the vehicle's centre line, and which side. */
+export type FloorText = { height: string; distance: string; side: Side };
+export type Drive = "lhd" | "rhd";
 export type HoleText = { id: string; label: string; y: string; z: string };
 
 export type SteeringFormState = {
@@ -29,7 +34,47 @@ export type SteeringFormState = {
   holeColumn: { on: boolean; zMin: string; zMax: string; pitch: string; y: string };
   /** Which lateral-link end the candidate holes are for: a new axle bracket (usual) or a new frame bracket. */
   candidateEnd: "axle" | "frame";
+  /** How the joints are entered: coordinates (y, z) or the measuring guide's floor heights and centre-line distances. */
+  entry?: "coordinates" | "floor";
+  /** Left- or right-hand drive: which side "driver's side" is. */
+  drive?: Drive;
+  floor?: Record<PointKey, FloorText>;
+  /** Optional axle width (wheel-mount face to face), for the plausibility check of link lengths. */
+  axleWidth?: string;
+  /** Rim diameter for toe at the rim (blank: not shown). */
+  rimDiameter?: string;
+  rankBy?: "heave" | "heaveAndRoll" | "combined";
 };
+
+/**
+ * Front view seen from ahead of the vehicle: its left side is on the drawing's right (+y). Left-hand drive puts
+ * the driver's side on the vehicle's left, right-hand drive on its right, so the two mirror each other.
+ */
+export function sideSign(side: Side, drive: Drive): 1 | -1 {
+  const driverIsPlus = drive === "lhd";
+  return (side === "driver") === driverIsPlus ? 1 : -1;
+}
+
+/** Coordinates → floor entries: y's sign gives the side, z is the height (a floor datum is assumed). */
+export function floorFromPoints(state: SteeringFormState, drive: Drive): Record<PointKey, FloorText> {
+  const out = {} as Record<PointKey, FloorText>;
+  for (const k of POINT_KEYS) {
+    const y = state[k].y.trim();
+    const negative = /^[-\u2212]/.test(y);
+    const plusSide: Side = drive === "lhd" ? "driver" : "passenger";
+    const minusSide: Side = plusSide === "driver" ? "passenger" : "driver";
+    out[k] = { height: state[k].z, distance: y.replace(/^[-+\u2212]\s*/, ""), side: negative ? minusSide : plusSide };
+  }
+  return out;
+}
+
+export const emptyFloor = (): Record<PointKey, FloorText> => ({
+  frameEnd: { height: "", distance: "", side: "driver" },
+  axleEnd: { height: "", distance: "", side: "passenger" },
+  pitmanEnd: { height: "", distance: "", side: "driver" },
+  knuckleEnd: { height: "", distance: "", side: "passenger" },
+  axleCenter: { height: "", distance: "0", side: "driver" },
+});
 
 export const POINT_KEYS = ["frameEnd", "axleEnd", "pitmanEnd", "knuckleEnd", "axleCenter"] as const;
 export type PointKey = (typeof POINT_KEYS)[number];
@@ -45,6 +90,7 @@ export const POINT_LABELS: Record<PointKey, string> = {
 /** Form field key → what to call it in the list of fields still to fix. */
 export function steeringFieldLabel(key: string): string {
   const [head, a, b] = key.split(".");
+  if (head === "floor" && a && a in POINT_LABELS) return `${POINT_LABELS[a as PointKey]}, ${b === "height" ? "height from the floor" : "distance from the centre line"}`;
   if (head && head in POINT_LABELS) return `${POINT_LABELS[head as PointKey]} ${a ?? ""}`.trim();
   if (head === "holes") return `Hole ${Number(a) + 1} ${b ?? ""}`.trim();
   const names: Record<string, string> = {
@@ -59,6 +105,7 @@ export function steeringFieldLabel(key: string): string {
     "holeColumn.zMax": "Hole column, highest z",
     "holeColumn.pitch": "Hole column, pitch",
     "holeColumn.y": "Hole column, y",
+    rimDiameter: "Rim diameter",
     holes: "Candidate holes",
     _: "Layout",
   };
@@ -135,6 +182,41 @@ export function emptySteeringForm(units: UnitSystem): SteeringFormState {
   };
 }
 
+function capitalise(t: string): string {
+  return t.charAt(0).toUpperCase() + t.slice(1);
+}
+
+/**
+ * Checks a measured layout against what a vehicle can look like. Errors (a joint below the floor) are already
+ * field errors; these are warnings that name what to re-measure, shown beside the results.
+ */
+export function plausibility(request: SteeringRequest, state: SteeringFormState): string[] {
+  const out: string[] = [];
+  const F = request.trackBar.frameEnd;
+  const A = request.trackBar.axleEnd;
+  const P = request.dragLink.pitmanEnd;
+  const K = request.dragLink.knuckleEnd;
+  const unit = preferredUnit("length", state.units);
+  const t = (mm: number) => `${trimNumber(fromSI("length", mm, unit), DIGITS[state.units])} ${state.units === "imperial" ? "in" : "mm"}`;
+  const lateral = Math.hypot(A.y - F.y, A.z - F.z);
+  const dragL = Math.hypot(K.y - P.y, K.z - P.z);
+  const width = state.axleWidth?.trim() ? quantityText("length", unit, "the axle width").safeParse(state.axleWidth) : null;
+  if (width?.success) {
+    if (lateral > width.data) out.push(`The lateral link (${t(lateral)} joint to joint) is longer than the axle (${t(width.data)}): check both distances from the centre line and their sides.`);
+    if (dragL > width.data) out.push(`The drag link (${t(dragL)} joint to joint) is longer than the axle (${t(width.data)}): check both distances from the centre line and their sides.`);
+  }
+  if (Math.sign(A.y) === Math.sign(F.y) && A.y !== 0) out.push("Both lateral-link joints are on the same side of the centre line; a lateral link normally crosses the vehicle. Check the sides.");
+  if (Math.sign(K.y) === Math.sign(P.y) && K.y !== 0) out.push("Both drag-link joints are on the same side of the centre line; check the sides.");
+  if (state.entry === "floor") {
+    for (const k of POINT_KEYS) {
+      const p = k === "frameEnd" ? F : k === "axleEnd" ? A : k === "pitmanEnd" ? P : k === "knuckleEnd" ? K : request.axleCenter;
+      if (p.z > 1500) out.push(`${POINT_LABELS[k]} is ${t(p.z)} above the floor: more than 1.5 m; check the reading.`);
+    }
+  }
+  if (lateral < 300) out.push(`The lateral link is only ${t(lateral)} joint to joint; check the two joints.`);
+  return out;
+}
+
 /** API path (trackBar.frameEnd.y, candidateHoles.2.z, holeRange.pitch…) → the form's field key. */
 function formKey(path: string): string {
   return path
@@ -163,15 +245,32 @@ export function toSteeringRequest(state: SteeringFormState): SteeringRequestOutc
     return Number.NaN;
   };
   const len = (key: string, text: string, label: string) => read(key, quantityText("length", unit, label), text) as number;
-  const point = (key: PointKey, label: string) => ({
-    y: len(`${key}.y`, state[key].y, `${label} y`),
-    z: len(`${key}.z`, state[key].z, `${label} z`),
-  });
+  const floorMode = state.entry === "floor" && state.floor !== undefined;
+  const drive = state.drive ?? "lhd";
+  const point = (key: PointKey, label: string) => {
+    if (floorMode) {
+      const f = state.floor![key];
+      const height = len(`floor.${key}.height`, f.height, `the height of ${label} from the floor`);
+      const distance = len(`floor.${key}.distance`, f.distance, `the distance of ${label} from the centre line`);
+      if (height < 0) errors[`floor.${key}.height`] ??= `${capitalise(label)} is below the floor: measure heights up from the floor.`;
+      if (distance < 0) errors[`floor.${key}.distance`] ??= "Give the distance from the centre line as a positive length, and pick the side.";
+      return { y: sideSign(f.side, drive) * Math.abs(distance), z: height };
+    }
+    return {
+      y: len(`${key}.y`, state[key].y, `${label} y`),
+      z: len(`${key}.z`, state[key].z, `${label} z`),
+    };
+  };
   const ratio = read("steeringRatio", optionalNumberText("steering ratio"), state.steeringRatio) as number | undefined;
+  const rim = read("rimDiameter", optionalQuantityText("length", unit), state.rimDiameter ?? "") as number | undefined;
   const column = state.holeColumn;
   const columnY = column.on ? (read("holeColumn.y", optionalQuantityText("length", unit), column.y) as number | undefined) : undefined;
+  const frameEnd = point("frameEnd", "the frame end");
+  const axleEnd = point("axleEnd", "the axle end");
+  // Measured from the floor, a hole is a height on the end's own vertical line.
+  const holeY = (i: number, text: string) => (floorMode ? (state.candidateEnd === "frame" ? frameEnd.y : axleEnd.y) : len(`holes.${i}.y`, text, "the hole y"));
   const request: SteeringRequest = {
-    trackBar: { frameEnd: point("frameEnd", "the frame end"), axleEnd: point("axleEnd", "the axle end") },
+    trackBar: { frameEnd, axleEnd },
     dragLink: { pitmanEnd: point("pitmanEnd", "the pitman end"), knuckleEnd: point("knuckleEnd", "the steering arm end") },
     axleCenter: point("axleCenter", "the roll centre"),
     steeringArmLength: len("steeringArmLength", state.steeringArmLength, "the steering arm length"),
@@ -195,7 +294,7 @@ export function toSteeringRequest(state: SteeringFormState): SteeringRequestOutc
             const label = h.label.trim() || `H${i + 1}`;
             // Said here in words: the library's own message for an over-long label reads "must be text".
             if (label.length > LIMITS.labelChars) errors[`holes.${i}.label`] ??= `Keep the label to ${LIMITS.labelChars} characters.`;
-            return { y: len(`holes.${i}.y`, h.y, "the hole y"), z: len(`holes.${i}.z`, h.z, "the hole z"), label };
+            return { y: holeY(i, h.y), z: len(`holes.${i}.z`, h.z, floorMode ? "the hole's height from the floor" : "the hole z"), label };
           }),
         }
       : {}),
@@ -210,6 +309,8 @@ export function toSteeringRequest(state: SteeringFormState): SteeringRequestOutc
         }
       : {}),
     ...(state.candidateEnd === "frame" ? { candidateEnd: "frame" as const } : {}),
+    ...(state.rankBy && state.rankBy !== "heave" ? { rankBy: state.rankBy } : {}),
+    ...(rim !== undefined ? { rimDiameter: rim } : {}),
   };
   const checked = steeringRequestSchema.safeParse(request);
   if (!checked.success) {
@@ -261,5 +362,10 @@ export function convertSteeringForm(state: SteeringFormState, to: UnitSystem): S
     travel: { bump: c(state.travel.bump), droop: c(state.travel.droop), step: c(state.travel.step) },
     holes: state.holes.map((h) => ({ ...h, ...pt(h) })),
     holeColumn: { ...state.holeColumn, zMin: c(state.holeColumn.zMin), zMax: c(state.holeColumn.zMax), pitch: c(state.holeColumn.pitch), y: c(state.holeColumn.y) },
+    ...(state.floor
+      ? { floor: Object.fromEntries(POINT_KEYS.map((k) => [k, { ...state.floor![k], height: c(state.floor![k].height), distance: c(state.floor![k].distance) }])) as Record<PointKey, FloorText> }
+      : {}),
+    ...(state.axleWidth !== undefined ? { axleWidth: c(state.axleWidth) } : {}),
+    ...(state.rimDiameter !== undefined ? { rimDiameter: c(state.rimDiameter) } : {}),
   };
 }

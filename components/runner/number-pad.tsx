@@ -1,6 +1,7 @@
 "use client";
 // A number pad for gloved hands: keys 64 px high, 8 px apart, nothing to drag or hold. It edits whichever
-// field is active; fields show the typed text and their unit, and a unit switch beside them.
+// field is active; fields show the typed text and their unit, and a unit switch beside them. Keys run 1-2-3 on
+// top, as on a phone and a tablet's own number keyboard, which is what hands expect for a PIN and a reading.
 import { padUnits, symbolOf, type PadKey, type PadQuantity } from "@/lib/jobs/units";
 
 export { applyKey } from "@/lib/jobs/units";
@@ -18,7 +19,7 @@ export function NumberPad({
   disabled?: boolean;
   testId?: string;
 }) {
-  const rows: PadKey[] = ["7", "8", "9", "4", "5", "6", "1", "2", "3", decimals ? "." : "clear", "0", "⌫"];
+  const rows: PadKey[] = ["1", "2", "3", "4", "5", "6", "7", "8", "9", decimals ? "." : "clear", "0", "⌫"];
   const label = (k: PadKey) => (k === "⌫" ? "Delete last" : k === "±" ? "Change sign" : k === "." ? "Decimal point" : k === "clear" ? "Clear" : k);
   const key = "figures flex min-h-16 items-center justify-center rounded-lg border-2 border-graphite-700 bg-white text-2xl font-semibold text-graphite-950 active:bg-primer-200 disabled:opacity-50";
   return (

@@ -139,7 +139,7 @@ export function PhotoStrip({
                   </a>
                 )}
                 {canRemove && onRemove && !selectable ? (
-                  <button type="button" className="btn btn-quiet min-h-12 w-full" onClick={() => void onRemove(p.id)}>Take off</button>
+                  <button type="button" className="btn btn-quiet min-h-12 w-full" onClick={() => void onRemove(p.id)}>Remove photo</button>
                 ) : null}
               </li>
             );

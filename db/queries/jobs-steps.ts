@@ -217,7 +217,7 @@ export async function signStep(ctx: ShopContext, jobId: string, stepId: string, 
         const plan = checkSignable(record, step, ctx, body.baseVersion);
         const { content, hash } = signedContent(record, step, plan.meaning, step.value, plan.acceptedUnder);
         const round = step.joint?.round ?? null;
-        const so = await appendSignOff(tx, { shopId: ctx.shopId, jobId, stepId, userId: ctx.userId, printedName: ctx.user.name, role: plan.role, meaning: plan.meaning, content, contentHash: hash, round });
+        const so = await appendSignOff(tx, { shopId: ctx.shopId, jobId, stepId, userId: ctx.userId, printedName: ctx.legalName, role: plan.role, meaning: plan.meaning, content, contentHash: hash, round });
         await tx
           .update(jobStep)
           .set({ signedAt: sql`coalesce(${jobStep.signedAt}, ${so.signedAt.toISOString()}::timestamptz)`, version: sql`${jobStep.version} + 1` })
@@ -281,7 +281,7 @@ export async function amendStep(ctx: ShopContext, jobId: string, stepId: string,
           jobId,
           stepId,
           userId: ctx.userId,
-          printedName: ctx.user.name,
+          printedName: ctx.legalName,
           role: role.role,
           meaning: role.meaning,
           content,
@@ -501,7 +501,7 @@ export async function overrideWeldPass(ctx: ShopContext, jobId: string, stepId: 
     () =>
       db().transaction(async (tx) => {
         const { spec, pass } = check(await loadRecord(tx, ctx, jobId, { lock: true }));
-        await tx.insert(weldPassOverride).values({ shopId: ctx.shopId, jobId, stepId, passId, reason: body.reason, leadId: ctx.userId, printedName: ctx.user.name });
+        await tx.insert(weldPassOverride).values({ shopId: ctx.shopId, jobId, stepId, passId, reason: body.reason, leadId: ctx.userId, printedName: ctx.legalName });
         await logActivity(tx, {
           shopId: ctx.shopId,
           jobId,

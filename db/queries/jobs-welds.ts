@@ -91,7 +91,7 @@ export async function inspectJoint(ctx: ShopContext, jobId: string, stepId: stri
           jobId,
           stepId,
           userId: ctx.userId,
-          printedName: ctx.user.name,
+          printedName: ctx.legalName,
           role: "inspector",
           meaning: "inspected",
           content,

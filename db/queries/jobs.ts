@@ -27,13 +27,20 @@ function escapeLike(q: string) {
 
 export async function listJobs(shopId: string, q: ListJobsQuery, viewerId: string): Promise<{ rows: JobListRow[]; total: number }> {
   const filters: SQL[] = [eq(job.shopId, shopId)];
-  if (q.q) filters.push(sql`${job.searchText} like ${`%${escapeLike(q.q.toLowerCase())}%`}`);
+  if (q.q) {
+    // Job number, VIN, axle tag and customer (the stored search text), or the name of a person on the job.
+    const like = `%${escapeLike(q.q.toLowerCase())}%`;
+    filters.push(
+      sql`(${job.searchText} like ${like} or exists (select 1 from ${jobAssignment} inner join ${user} on ${user.id} = ${jobAssignment.userId} where ${jobAssignment.jobId} = ${job.id} and lower(${user.name}) like ${like}))`,
+    );
+  }
   if (q.status === "open") filters.push(notInArray(job.status, ["released", "void"]));
   else if (q.status) filters.push(eq(job.status, q.status));
   if (q.assignee) {
     const who = q.assignee === "me" ? viewerId : q.assignee;
     filters.push(sql`exists (select 1 from ${jobAssignment} where ${jobAssignment.jobId} = ${job.id} and ${jobAssignment.userId} = ${who})`);
   }
+  if (q.needs === "geometry") filters.push(sql`exists (select 1 from ${jobStep} where ${jobStep.jobId} = ${job.id} and ${jobStep.kind} = 'geometry' and ${jobStep.signedAt} is null)`);
   if (q.dueFrom) filters.push(gte(job.dueDate, q.dueFrom));
   if (q.dueTo) filters.push(lte(job.dueDate, q.dueTo));
   const where = and(...filters);
@@ -321,7 +328,7 @@ export async function releaseJob(ctx: ShopContext, jobId: string, pin: string): 
           shopId: ctx.shopId,
           jobId,
           userId: ctx.userId,
-          printedName: ctx.user.name,
+          printedName: ctx.legalName,
           role: "lead",
           meaning: "released",
           content,

@@ -1,8 +1,8 @@
 import "server-only";
 import { createHash, randomBytes } from "node:crypto";
-import { and, asc, count, desc, eq, ilike, isNull, or, sql } from "drizzle-orm";
+import { and, asc, count, desc, eq, ilike, isNotNull, isNull, or, sql } from "drizzle-orm";
 import { invitation, membership, shop, shopActivity, user } from "@/db/schema";
-import { account } from "@/db/schema/auth";
+import { account, session } from "@/db/schema/auth";
 import type { Role } from "@/lib/authz";
 import { hashPin, pinMatches, PIN_MAX_FAILURES } from "@/lib/auth/pin";
 import { db } from "@/lib/db";
@@ -14,6 +14,8 @@ export type MemberRow = {
   membershipId: string;
   userId: string;
   name: string;
+  /** printed on this person's sign-offs in this shop */
+  legalName: string;
   email: string;
   roles: Role[];
   active: boolean;
@@ -27,6 +29,7 @@ const memberColumns = {
   membershipId: membership.id,
   userId: user.id,
   name: user.name,
+  legalName: membership.legalName,
   email: user.email,
   roles: membership.roles,
   active: membership.active,
@@ -40,7 +43,7 @@ export async function listMembers(shopId: string, opts: { q?: string; page: numb
   if (!opts.includeInactive) filters.push(eq(membership.active, true));
   if (opts.q) {
     const like = `%${opts.q.replace(/[%_\\]/g, (c) => `\\${c}`)}%`;
-    filters.push(or(ilike(user.name, like), ilike(user.email, like))!);
+    filters.push(or(ilike(user.name, like), ilike(membership.legalName, like), ilike(user.email, like))!);
   }
   const where = and(...filters);
   const [rows, [total]] = await Promise.all([
@@ -144,9 +147,11 @@ export async function acceptInvitation(args: { token: string; name?: string; pas
       .where(and(eq(invitation.id, inv.id), isNull(invitation.acceptedAt)))
       .returning({ id: invitation.id });
     if (!updated.length) throw new AppError("conflict", "This invitation was used a moment ago.");
+    // The printed name starts as the account's name; a lead corrects it on the People page.
+    const [named] = await tx.select({ name: user.name }).from(user).where(eq(user.id, userId));
     await tx
       .insert(membership)
-      .values({ shopId: inv.shopId, userId, roles: inv.roles })
+      .values({ shopId: inv.shopId, userId, roles: inv.roles, legalName: named?.name ?? args.name ?? inv.email })
       .onConflictDoUpdate({ target: [membership.shopId, membership.userId], set: { roles: inv.roles, active: true, deactivatedAt: null } });
     await tx.insert(shopActivity).values({ shopId: inv.shopId, actorId: userId, action: "person.joined", detail: { email: inv.email, roles: inv.roles } });
     return { shopId: inv.shopId, userId };
@@ -196,6 +201,29 @@ export async function setActive(args: { shopId: string; membershipId: string; ac
       .set({ active: args.active, deactivatedAt: args.active ? null : new Date() })
       .where(and(eq(membership.id, target.id), eq(membership.shopId, args.shopId)));
     await tx.insert(shopActivity).values({ shopId: args.shopId, actorId: args.actorId, action: args.active ? "person.reactivated" : "person.deactivated", detail: { userId: target.userId } });
+    // A deactivated person is signed out everywhere at once, not when their sessions run out; they can sign
+    // in again for any other shop they still belong to.
+    if (!args.active) await tx.delete(session).where(eq(session.userId, target.userId));
+  });
+}
+
+// A lead sets the name printed on a member's sign-offs from now on; sign-offs already made keep theirs.
+export async function setLegalName(args: { shopId: string; membershipId: string; legalName: string; actorId: string }) {
+  await db().transaction(async (tx) => {
+    const [target] = await tx
+      .select({ id: membership.id, userId: membership.userId, legalName: membership.legalName })
+      .from(membership)
+      .where(and(eq(membership.id, args.membershipId), eq(membership.shopId, args.shopId)))
+      .for("update");
+    if (!target) throw new AppError("not_found", "Person not found in this shop.");
+    if (target.legalName === args.legalName) return;
+    await tx.update(membership).set({ legalName: args.legalName }).where(and(eq(membership.id, target.id), eq(membership.shopId, args.shopId)));
+    await tx.insert(shopActivity).values({
+      shopId: args.shopId,
+      actorId: args.actorId,
+      action: "person.legal_name_set",
+      detail: { userId: target.userId, from: target.legalName, to: args.legalName },
+    });
   });
 }
 
@@ -222,29 +250,46 @@ export async function resetPin(args: { shopId: string; membershipId: string; act
   });
 }
 
-// Checks a signing PIN, counting failures; the fifth wrong try locks signing until a lead resets it.
+// Checks a signing PIN; the fifth wrong try locks signing until a lead resets it. Each attempt first takes
+// one of the tries left in a single UPDATE ... RETURNING (counted as a failure until the PIN is found
+// right), so parallel attempts queue on the row and no more PINs are ever compared than the lock allows.
 export async function verifySigningPin(args: { shopId: string; userId: string; pin: string }) {
-  const [row] = await db()
-    .select({ id: membership.id, pinHash: membership.pinHash, pinFailures: membership.pinFailures, pinLockedAt: membership.pinLockedAt })
-    .from(membership)
-    .where(and(eq(membership.shopId, args.shopId), eq(membership.userId, args.userId), eq(membership.active, true)))
-    .limit(1);
-  if (!row) throw new AppError("forbidden", "You are not an active member of this shop.");
-  if (row.pinLockedAt) throw new AppError("locked", "Signing is locked after 5 wrong PINs. Ask a lead to reset your PIN.");
-  if (!row.pinHash) throw new AppError("forbidden", "Set your signing PIN on the Account page first.");
-  if (await pinMatches(args.pin, row.pinHash)) {
-    if (row.pinFailures > 0) await db().update(membership).set({ pinFailures: 0 }).where(eq(membership.id, row.id));
-    return true;
-  }
-  const [after] = await db()
+  const [claimed] = await db()
     .update(membership)
     .set({
       pinFailures: sql`${membership.pinFailures} + 1`,
       pinLockedAt: sql`case when ${membership.pinFailures} + 1 >= ${PIN_MAX_FAILURES} then now() else null end`,
     })
-    .where(eq(membership.id, row.id))
-    .returning({ failures: membership.pinFailures });
-  const left = PIN_MAX_FAILURES - (after?.failures ?? PIN_MAX_FAILURES);
+    .where(
+      and(
+        eq(membership.shopId, args.shopId),
+        eq(membership.userId, args.userId),
+        eq(membership.active, true),
+        isNotNull(membership.pinHash),
+        isNull(membership.pinLockedAt),
+      ),
+    )
+    .returning({ id: membership.id, pinHash: membership.pinHash, failures: membership.pinFailures });
+  if (!claimed?.pinHash) {
+    const [row] = await db()
+      .select({ pinHash: membership.pinHash, pinLockedAt: membership.pinLockedAt })
+      .from(membership)
+      .where(and(eq(membership.shopId, args.shopId), eq(membership.userId, args.userId), eq(membership.active, true)))
+      .limit(1);
+    if (!row) throw new AppError("forbidden", "You are not an active member of this shop.");
+    if (!row.pinHash) throw new AppError("forbidden", "Set your signing PIN on the Account page first.");
+    throw new AppError("locked", `Signing is locked after ${PIN_MAX_FAILURES} wrong PINs. Ask a lead to reset your PIN.`);
+  }
+  if (await pinMatches(args.pin, claimed.pinHash)) {
+    // The right PIN gives every try back (and lifts a lock its own claim set), unless other attempts have
+    // claimed tries since: those are still being counted.
+    await db()
+      .update(membership)
+      .set({ pinFailures: 0, pinLockedAt: null })
+      .where(and(eq(membership.id, claimed.id), eq(membership.pinFailures, claimed.failures)));
+    return true;
+  }
+  const left = PIN_MAX_FAILURES - claimed.failures;
   if (left <= 0) throw new AppError("locked", "Wrong PIN. Signing is now locked; ask a lead to reset your PIN.");
   throw new AppError("forbidden", `Wrong PIN. ${left} ${left === 1 ? "try" : "tries"} left before signing locks.`, { pin: ["Wrong PIN."] });
 }

@@ -47,11 +47,11 @@ function effectiveLastUse(today: string) {
 
 // Postgres adds months clamping to the end of a shorter month, as lib/welding addMonthsClamped does.
 // ASME IX QW-322.1 lapses on the 6-month anniversary; AWS D1.1 6.2.3.1 from the day after it.
-function expiresOnSql(code: ContinuityCode, today: string) {
+export function expiresOnSql(code: ContinuityCode, today: string) {
   return sql`((${effectiveLastUse(today)} + interval '6 months')::date + ${code === "aws-d1.1" ? 1 : 0}::int)`;
 }
 
-function daysLeftSql(code: ContinuityCode, today: string) {
+export function daysLeftSql(code: ContinuityCode, today: string) {
   return sql`(${expiresOnSql(code, today)} - ${today}::date)`;
 }
 

@@ -1,9 +1,11 @@
 import "server-only";
 import { randomBytes } from "node:crypto";
-import { asc, desc, eq, sql } from "drizzle-orm";
-import { jobToken, recordEntry, signOff } from "@/db/schema";
+import { and, asc, desc, eq, isNull, sql } from "drizzle-orm";
+import { jobStep, jobToken, photo, recordEntry, signOff, weldInspection, weldPass } from "@/db/schema";
 import { db } from "@/lib/db";
 import { recordEntryFor, type SignOffForChain } from "@/lib/records/entry";
+import { comparePaperSeal, type PaperCheck } from "@/lib/records/paper-seal";
+import { firstRowDifference, type LiveRows } from "@/lib/records/rows-check";
 import { chainHash, contentHash, GENESIS_HASH, verifyChain } from "@/lib/seal";
 
 type Tx = Parameters<Parameters<ReturnType<typeof db>["transaction"]>[0]>[0];
@@ -52,6 +54,8 @@ export type Integrity = {
   seal: string | null;
   /** the head as stored, shown even when the chain no longer verifies */
   storedSeal: string | null;
+  /** each entry's stored hash in order: an earlier print of an open job carries one of these */
+  entryHashes: string[];
   firstBrokenSeq?: number;
   reason?: string;
 };
@@ -72,7 +76,8 @@ export async function verifyJobRecord(jobId: string, runner: Runner = db()): Pro
   const signOffs = await runner.select(signOffColumns).from(signOff).where(eq(signOff.jobId, jobId));
   const byId = new Map(signOffs.map((s) => [s.id, s]));
   const storedSeal = rows.at(-1)?.hash ?? null;
-  const broken = (seq: number, reason: string): Integrity => ({ intact: false, entries: rows.length, seal: null, storedSeal, firstBrokenSeq: seq, reason });
+  const entryHashes = rows.map((r) => r.hash);
+  const broken = (seq: number, reason: string): Integrity => ({ intact: false, entries: rows.length, seal: null, storedSeal, entryHashes, firstBrokenSeq: seq, reason });
 
   for (const row of rows) {
     const s = byId.get(row.signOffId);
@@ -88,7 +93,53 @@ export async function verifyJobRecord(jobId: string, runner: Runner = db()): Pro
   if (signOffs.length !== rows.length) {
     return broken(rows.length + 1, `${signOffs.length - rows.length} sign-off(s) are not on the record chain`);
   }
-  return { intact: true, entries: rows.length, seal: chain.seal, storedSeal };
+  // The chain holds; the rows the screens read must still say what was sealed.
+  const difference = firstRowDifference(signOffs, await liveRows(runner, jobId));
+  if (difference) {
+    const seq = rows.find((r) => r.signOffId === difference.signOffId)?.seq ?? rows.length;
+    return broken(seq, `${difference.reason}: the record was changed after it was signed`);
+  }
+  return { intact: true, entries: rows.length, seal: chain.seal, storedSeal, entryHashes };
+}
+
+async function liveRows(runner: Runner, jobId: string): Promise<LiveRows> {
+  const [steps, passes, photos, inspections] = await Promise.all([
+    runner.select({ id: jobStep.id, title: jobStep.title, value: jobStep.value }).from(jobStep).where(eq(jobStep.jobId, jobId)),
+    runner
+      .select({
+        stepId: weldPass.stepId,
+        passNumber: weldPass.passNumber,
+        welderId: weldPass.welderId,
+        process: weldPass.process,
+        volts: weldPass.volts,
+        amps: weldPass.amps,
+        travelSpeedMmPerMin: weldPass.travelSpeedMmPerMin,
+        preheatC: weldPass.preheatC,
+        interpassC: weldPass.interpassC,
+        fillerLot: weldPass.fillerLot,
+        heatInputKJPerMm: weldPass.heatInputKJPerMm,
+      })
+      .from(weldPass)
+      .where(and(eq(weldPass.jobId, jobId), isNull(weldPass.removedAt))),
+    runner.select({ id: photo.id, sha256: photo.sha256 }).from(photo).where(eq(photo.jobId, jobId)),
+    runner
+      .select({
+        signOffId: weldInspection.signOffId,
+        criteria: weldInspection.criteria,
+        observations: weldInspection.observations,
+        judged: weldInspection.judged,
+        decision: weldInspection.decision,
+        notes: weldInspection.notes,
+      })
+      .from(weldInspection)
+      .where(eq(weldInspection.jobId, jobId)),
+  ]);
+  return { steps, passes, photos, inspections };
+}
+
+/** The seal printed on a traveller against this record. */
+export function paperCheck(integrity: Integrity, paperSeal: string): PaperCheck {
+  return comparePaperSeal(paperSeal, { intact: integrity.intact, seal: integrity.seal, entryHashes: integrity.entryHashes });
 }
 
 export async function tokenForJob(runner: Runner, args: { shopId: string; jobId: string }): Promise<string> {
@@ -107,22 +158,27 @@ export async function jobIdForToken(token: string): Promise<{ jobId: string; sho
 
 export type PublicVerification = {
   jobNumber: string;
+  /** the tag on the axle housing and the VIN's last 6, so a traveller moved to another housing shows it */
+  axleTag: string;
+  vinLast6: string;
   shop: string;
   status: string;
   releasedAt: string | null;
   integrity: { intact: boolean; entries: number; seal: string | null };
 };
 
-// What anyone holding the traveller may see: no customer, no vehicle, no people.
+// What anyone holding the traveller may see: the housing's tag and the VIN's tail, no customer, no people.
 export async function publicVerification(jobId: string): Promise<PublicVerification & { shopId: string; integrityDetail: Integrity }> {
-  const rows = await db().execute<{ number: string; status: string; released_at: Date | null; shop_name: string; shop_id: string }>(
-    sql`select j.number, j.status, j.released_at, s.name as shop_name, s.id as shop_id from job j join shop s on s.id = j.shop_id where j.id = ${jobId}`,
+  const rows = await db().execute<{ number: string; status: string; released_at: Date | null; shop_name: string; shop_id: string; axle_tag: string; vin: string }>(
+    sql`select j.number, j.status, j.released_at, j.axle_tag, j.vin, s.name as shop_name, s.id as shop_id from job j join shop s on s.id = j.shop_id where j.id = ${jobId}`,
   );
   const j = rows.rows[0];
   if (!j) throw new Error("job of a token not found");
   const integrity = await verifyJobRecord(jobId);
   return {
     jobNumber: j.number,
+    axleTag: j.axle_tag,
+    vinLast6: j.vin.replace(/\s+/g, "").slice(-6).toUpperCase(),
     shop: j.shop_name,
     shopId: j.shop_id,
     status: j.status,

@@ -303,6 +303,8 @@ export const weldPass = pgTable(
     uniqueIndex("weld_pass_client_key_idx").on(t.shopId, t.clientKey),
     index("weld_pass_job_idx").on(t.jobId, t.stepId),
     index("weld_pass_welder_idx").on(t.shopId, t.welderId),
+    // The quality figures read a shop's passes by date (db/queries/quality.ts; measured in bench/quality.ts).
+    index("weld_pass_shop_recorded_idx").on(t.shopId, t.recordedAt),
     check("weld_pass_round", sql`${t.round} >= 1`),
   ],
 );
@@ -354,6 +356,7 @@ export const weldInspection = pgTable(
     uniqueIndex("weld_inspection_round_idx").on(t.stepId, t.round),
     uniqueIndex("weld_inspection_sign_off_idx").on(t.signOffId),
     index("weld_inspection_job_idx").on(t.jobId, t.inspectedAt),
+    index("weld_inspection_shop_inspected_idx").on(t.shopId, t.inspectedAt),
     check("weld_inspection_photos", sql`cardinality(${t.photoIds}) >= 1`),
     check("weld_inspection_accept", sql`${t.decision} = 'rejected' or ${t.judged} = 'accept'`),
   ],

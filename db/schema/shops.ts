@@ -11,6 +11,8 @@ export const shop = pgTable("shop", {
   slug: text("slug").notNull().unique(),
   // Which code's continuity rule keeps welder qualifications alive (ASME IX QW-322.1 or AWS D1.1).
   continuityCode: text("continuity_code", { enum: ["asme-ix", "aws-d1.1"] }).notNull().default("aws-d1.1"),
+  // Where each release's seal is mailed, so a copy of it lives outside the database; null = the shop's leads.
+  archiveEmail: text("archive_email"),
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
 });
 
@@ -21,6 +23,9 @@ export const membership = pgTable(
     shopId: uuid("shop_id").notNull().references(() => shop.id),
     userId: text("user_id").notNull().references(() => user.id),
     roles: text("roles").array().$type<Role[]>().notNull(),
+    // The name printed on this person's sign-offs in this shop. Set by a lead (logged), never by the person's
+    // own account settings; a change applies to later sign-offs only.
+    legalName: text("legal_name").notNull(),
     active: boolean("active").notNull().default(true),
     unitSystem: text("unit_system", { enum: ["metric", "imperial"] }).notNull().default("metric"),
     // Signing PIN: scrypt hash, never the digits. Failures count towards a lock.

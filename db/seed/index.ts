@@ -44,7 +44,7 @@ export async function seed(databaseUrl: string, storage: SeedStorage | null = se
             .from(membership)
             .where(and(eq(membership.shopId, shopRow!.id), eq(membership.userId, u.id)));
           if (!m) {
-            await tx.insert(membership).values({ shopId: shopRow!.id, userId: u.id, roles: [...p.roles], pinHash: await hashPin(DEMO_PIN), pinSetAt: new Date() });
+            await tx.insert(membership).values({ shopId: shopRow!.id, userId: u.id, roles: [...p.roles], legalName: p.name, pinHash: await hashPin(DEMO_PIN), pinSetAt: new Date() });
           }
           if ((p.roles as readonly string[]).includes("lead")) leadId ??= u.id;
         }

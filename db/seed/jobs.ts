@@ -49,6 +49,12 @@ const GEOMETRY_AFTER = {
   unit: "mm" as const,
 };
 
+// The same truck before the work: the old bracket held the lateral link's axle end 60 mm lower.
+const GEOMETRY_BEFORE = {
+  ...GEOMETRY_AFTER,
+  input: { ...GEOMETRY_AFTER.input, trackBar: { ...GEOMETRY_AFTER.input.trackBar, axleEnd: { y: 480, z: 120 } } },
+};
+
 // A value that passes each step kind, for the steps a demo job has already signed.
 function passingValue(spec: Step): Record<string, unknown> {
   switch (spec.kind) {
@@ -65,7 +71,12 @@ function passingValue(spec: Step): Record<string, unknown> {
     case "torque":
       return { achievedNm: Math.round(spec.torqueNm * 100) / 100, unit: spec.torqueUnit ?? "N_m" };
     case "geometry":
-      return { [spec.capture === "before" ? "before" : "after"]: { ...GEOMETRY_AFTER, capturedAt: new Date().toISOString(), results: geometryResults(GEOMETRY_AFTER.input) } };
+      if (spec.capture === "before") return { before: { ...GEOMETRY_BEFORE, capturedAt: new Date().toISOString(), results: geometryResults(GEOMETRY_BEFORE.input) } };
+      if (spec.capture === "after") return { after: { ...GEOMETRY_AFTER, capturedAt: new Date().toISOString(), results: geometryResults(GEOMETRY_AFTER.input) } };
+      return {
+        before: { ...GEOMETRY_BEFORE, capturedAt: new Date().toISOString(), results: geometryResults(GEOMETRY_BEFORE.input) },
+        after: { ...GEOMETRY_AFTER, capturedAt: new Date().toISOString(), results: geometryResults(GEOMETRY_AFTER.input) },
+      };
     default:
       return {};
   }

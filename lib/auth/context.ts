@@ -15,6 +15,8 @@ export type ShopContext = Omit<Principal, "roles"> & {
   shop: { id: string; name: string; slug: string; continuityCode: "asme-ix" | "aws-d1.1" };
   roles: Role[];
   membershipId: string;
+  /** the membership's legal name: what sign-offs print (a lead sets it; the account's own name never does) */
+  legalName: string;
   unitSystem: "metric" | "imperial";
   shops: { id: string; name: string }[];
 };
@@ -22,7 +24,7 @@ export type ShopContext = Omit<Principal, "roles"> & {
 type SessionUser = { id: string; name: string; email: string };
 
 export async function sessionFromHeaders(h: Headers): Promise<SessionUser | null> {
-  const result = await getAuth().api.getSession({ headers: h });
+  const result = await getAuth(h).api.getSession({ headers: h });
   if (!result) return null;
   return { id: result.user.id, name: result.user.name, email: result.user.email };
 }
@@ -34,6 +36,7 @@ export async function shopContextFor(user: SessionUser, wantedShopId: string | u
     .select({
       membershipId: membership.id,
       roles: membership.roles,
+      legalName: membership.legalName,
       active: membership.active,
       unitSystem: membership.unitSystem,
       shopId: shop.id,
@@ -55,6 +58,7 @@ export async function shopContextFor(user: SessionUser, wantedShopId: string | u
     user,
     shop: { id: row.shopId, name: row.shopName, slug: row.shopSlug, continuityCode: row.continuityCode },
     membershipId: row.membershipId,
+    legalName: row.legalName,
     unitSystem: row.unitSystem,
     shops: rows.map((r) => ({ id: r.shopId, name: r.shopName })),
   };

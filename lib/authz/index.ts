@@ -16,8 +16,10 @@ const PERMISSIONS = {
   "shop:read": ["lead", "welder", "inspector", "auditor"],
   "people:read": ["lead"],
   "people:manage": ["lead"],
+  "shop:manage": ["lead"],
   "pin:reset": ["lead"],
   "mailbox:read": ["lead"],
+  "devices:manage": ["lead"],
   "procedure:read": ["lead", "welder", "inspector", "auditor"],
   "procedure:write": ["lead"],
   "job:read": ["lead", "welder", "inspector", "auditor"],
@@ -35,6 +37,9 @@ const PERMISSIONS = {
   "qualification:write": ["lead"],
   "audit:search": ["lead", "inspector", "auditor"],
   "calc:use": ["lead", "welder", "inspector", "auditor"],
+  // Quality figures: a welder sees those of their own work; the others the whole shop's.
+  "quality:read": ["lead", "welder", "inspector", "auditor"],
+  "quality:shop": ["lead", "inspector", "auditor"],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof PERMISSIONS;

@@ -23,7 +23,7 @@
  *   each with its own bar length |hole − F|. candidateEnd: "frame" moves the frame end instead.
  *   Holes are ranked by worst |wheel steer| over the heave sweep only.
  */
-export { computeSteeringGeometry, linkAngleDeg, candidateList } from "./steering";
+export { computeSteeringGeometry, linkAngleDeg, candidateList, toeAtRim, COMBINED_MAX_EVALUATIONS } from "./steering";
 export { GeometryError, isGeometryError, type GeometryErrorReason } from "./errors";
 export { LIMITS, holeRangeCount, sweepCount, sweepValues } from "./limits";
 export { steeringInputSchema, type SteeringInputParsed } from "./schema";

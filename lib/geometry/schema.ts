@@ -87,6 +87,8 @@ export const steeringInputSchema = z
       })
       .optional(),
     candidateEnd: z.enum(["axle", "frame"], "candidate end must be \"axle\" or \"frame\"").optional(),
+    rankBy: z.enum(["heave", "heaveAndRoll", "combined"], "rank by must be \"heave\", \"heaveAndRoll\" or \"combined\"").optional(),
+    rimDiameter: positive("rim diameter", LIMITS.armMm, "mm").optional(),
   })
   .superRefine((v, ctx) => {
     const listed = v.candidateHoles?.length ?? 0;

@@ -3,10 +3,12 @@ import { LIMITS, holeRangeCount, sweepValues } from "./limits";
 import type {
   HeavePoint,
   HoleResult,
+  OptimumResult,
   Point2,
   RollPoint,
   SteeringInput,
   SteeringResult,
+  WorstCombined,
   WorstHeave,
   WorstOverall,
   WorstRoll,
@@ -162,6 +164,314 @@ function worstHeaveError(link: Link, drag: Link, travels: Float64Array, label: s
   return worst;
 }
 
+
+/**
+ * Roll sweep precomputed once: sin φ, cos φ − 1 (as −2 sin²(φ/2), free of cancellation for small φ) and the
+ * steering-arm end's move by the rotation alone. Every sweep below evaluates the same expressions in the same
+ * order as computeSteeringGeometry's own roll loop, so a figure found here is the figure the answer lists.
+ */
+interface RollTable {
+  phi: Float64Array;
+  sn: Float64Array;
+  c1: Float64Array;
+  kdy: Float64Array;
+  kdz: Float64Array;
+}
+
+function makeRollTable(angles: Float64Array, K: Point2, C: Point2): RollTable {
+  const n = angles.length;
+  const t: RollTable = { phi: angles, sn: new Float64Array(n), c1: new Float64Array(n), kdy: new Float64Array(n), kdz: new Float64Array(n) };
+  const ky = K.y - C.y;
+  const kz = K.z - C.z;
+  for (let i = 0; i < n; i++) {
+    const a = angles[i]! * RAD;
+    const sn = Math.sin(a);
+    const half = Math.sin(a / 2);
+    const c1 = -2 * half * half;
+    t.sn[i] = sn;
+    t.c1[i] = c1;
+    t.kdy[i] = c1 * ky - sn * kz;
+    t.kdz[i] = sn * ky + c1 * kz;
+  }
+  return t;
+}
+
+/** Signed drag-link error of largest |d| over the heave points; NaN when a link cannot reach. */
+function heaveWorstD(ey: number, ez: number, l2: number, sgn: number, drag: Link, travels: Float64Array): number {
+  let worstAbs = -1;
+  let worst = 0;
+  for (let i = 0; i < travels.length; i++) {
+    const h = travels[i]!;
+    const s = correction(ey, ez, l2, sgn, 0, h);
+    if (s !== s) return Number.NaN;
+    const d = correction(drag.ey, drag.ez, drag.l2, drag.sgn, s, h);
+    if (d !== d) return Number.NaN;
+    const a = d < 0 ? -d : d;
+    if (a > worstAbs) {
+      worstAbs = a;
+      worst = d;
+    }
+  }
+  return worst;
+}
+
+/**
+ * Signed drag-link error of largest |d| over the roll points; (ay, az) is the axle-borne lateral-link end
+ * relative to the roll centre. NaN when a link cannot reach.
+ */
+function rollWorstD(ey: number, ez: number, l2: number, sgn: number, drag: Link, roll: RollTable, ay: number, az: number): number {
+  let worstAbs = -1;
+  let worst = 0;
+  for (let i = 0; i < roll.phi.length; i++) {
+    const sn = roll.sn[i]!;
+    const c1 = roll.c1[i]!;
+    const s = correction(ey, ez, l2, sgn, c1 * ay - sn * az, sn * ay + c1 * az);
+    if (s !== s) return Number.NaN;
+    const d = correction(drag.ey, drag.ez, drag.l2, drag.sgn, roll.kdy[i]! + s, roll.kdz[i]!);
+    if (d !== d) return Number.NaN;
+    const a = d < 0 ? -d : d;
+    if (a > worstAbs) {
+      worstAbs = a;
+      worst = d;
+    }
+  }
+  return worst;
+}
+
+/**
+ * Combined articulation: every heave point at every roll angle (the axle turned about the roll centre, then
+ * lifted by h and shifted by s). NaN when a link cannot reach somewhere on the grid.
+ */
+function combinedWorst(
+  ey: number,
+  ez: number,
+  l2: number,
+  sgn: number,
+  drag: Link,
+  travels: Float64Array,
+  roll: RollTable,
+  ay: number,
+  az: number,
+): { d: number; travel: number; rollDeg: number } | null {
+  let worstAbs = -1;
+  let out = { d: 0, travel: 0, rollDeg: 0 };
+  for (let i = 0; i < roll.phi.length; i++) {
+    const sn = roll.sn[i]!;
+    const c1 = roll.c1[i]!;
+    const ady = c1 * ay - sn * az;
+    const adz = sn * ay + c1 * az;
+    const kdy = roll.kdy[i]!;
+    const kdz = roll.kdz[i]!;
+    for (let j = 0; j < travels.length; j++) {
+      const h = travels[j]!;
+      const s = correction(ey, ez, l2, sgn, ady, adz + h);
+      if (s !== s) return null;
+      const d = correction(drag.ey, drag.ez, drag.l2, drag.sgn, kdy + s, kdz + h);
+      if (d !== d) return null;
+      const a = d < 0 ? -d : d;
+      if (a > worstAbs) {
+        worstAbs = a;
+        out = { d, travel: h, rollDeg: roll.phi[i]! };
+      }
+    }
+  }
+  return out;
+}
+
+/** Largest combined grid (points × candidates) worked out per request; past it the answer says it was skipped. */
+export const COMBINED_MAX_EVALUATIONS = 1_000_000;
+
+/** Scan points for the optimum: the dense pass over the feasible range, and the fine pass near likely heights. */
+const OPT_SCAN = 1601;
+const OPT_NEAR = 401;
+const OPT_NEAR_MM = 200;
+const OPT_ZOOM = 11;
+const OPT_SEEDS = 4;
+const OPT_TOL_MM = 1e-7;
+/** Heave and roll points used by the dense pass when the sweeps are long (refinement always uses them all). */
+const OPT_THIN = 257;
+
+function thinned(values: Float64Array, keep: number): Float64Array {
+  if (values.length <= keep) return values;
+  const out = new Float64Array(keep);
+  const stride = (values.length - 1) / (keep - 1);
+  for (let i = 0; i < keep; i++) out[i] = values[Math.round(i * stride)]!;
+  return out;
+}
+
+/**
+ * Best height for one lateral-link end on the vertical through its current joint, by the largest |drag-link
+ * error| over the heave and roll points (|steer| = asin(|d|/r) rises with |d|, so the same height wins).
+ * The objective is a maximum of absolute values, so it has corners and may have several dips: a dense scan of
+ * every feasible height picks the best few neighbourhoods, and each is narrowed by nested 11-point scans
+ * (each a fifth as wide) to 1e-7 mm. The best height ever evaluated exactly is returned, so the answer is
+ * never worse than any height the scan tried.
+ */
+function findOptimum(
+  end: "axle" | "frame",
+  F: Point2,
+  A: Point2,
+  C: Point2,
+  drag: Link,
+  r: number,
+  travels: Float64Array,
+  roll: RollTable | null,
+  hint: number | undefined,
+): { z: number; d: number; min: number; max: number } {
+  const lineY = end === "axle" ? A.y : F.y;
+  const ey = A.y - F.y;
+  const current = end === "axle" ? A.z : F.z;
+  // ez of the link vector F → A as a function of the height z of the moving end.
+  const ezOf = end === "axle" ? (z: number) => z - F.z : (z: number) => A.z - z;
+  const ay = A.y - C.y;
+  const sgn = ey > 0 ? 1 : -1;
+  const thinTravels = thinned(travels, OPT_THIN);
+  const thinRoll = roll && roll.phi.length > OPT_THIN ? makeThinRoll(roll, OPT_THIN) : roll;
+  const evaluate = (z: number, tr: Float64Array, rt: RollTable | null): number => {
+    const ez = ezOf(z);
+    const l2 = ey * ey + ez * ez;
+    const dh = heaveWorstD(ey, ez, l2, sgn, drag, tr);
+    if (dh !== dh) return Number.NaN;
+    let d = dh;
+    if (rt) {
+      const az = (end === "axle" ? z : A.z) - C.z;
+      const dr = rollWorstD(ey, ez, l2, sgn, drag, rt, ay, az);
+      if (dr !== dr) return Number.NaN;
+      if (Math.abs(dr) > Math.abs(d)) d = dr;
+    }
+    // Past the steering arm's reach asin has no answer: such a height is not a solution.
+    return Math.abs(d) <= r ? d : Number.NaN;
+  };
+  const score = (d: number) => (d === d ? Math.abs(d) : Number.POSITIVE_INFINITY);
+
+  // Heights at which the link reaches over the heave sweep (closed form), within the coordinate bounds.
+  // For the link vector e = (ey, ez): ey² − 2·ez·h − h² ≥ 0 at every travel h (axle end), mirrored for the frame end.
+  const bump = travels[travels.length - 1]!;
+  const droop = -travels[0]!;
+  let ezLo = -Infinity;
+  let ezHi = Infinity;
+  if (bump > 0) ezHi = Math.min(ezHi, (ey * ey - bump * bump) / (2 * bump));
+  if (droop > 0) ezLo = Math.max(ezLo, (droop * droop - ey * ey) / (2 * droop));
+  let lo: number;
+  let hi: number;
+  if (end === "axle") {
+    lo = F.z + ezLo;
+    hi = F.z + ezHi;
+  } else {
+    lo = A.z - ezHi;
+    hi = A.z - ezLo;
+  }
+  lo = Math.max(lo, -LIMITS.coordMm);
+  hi = Math.min(hi, LIMITS.coordMm);
+  if (!(hi >= lo)) {
+    lo = current;
+    hi = current;
+  }
+
+  const zs: number[] = [];
+  for (let i = 0; i < OPT_SCAN; i++) zs.push(lo + ((hi - lo) * i) / (OPT_SCAN - 1));
+  // Finer near the joint as it is and near the first-order answer (parallel links), where the best usually is.
+  for (const c of [current, hint]) {
+    if (c === undefined || !Number.isFinite(c)) continue;
+    for (let i = 0; i < OPT_NEAR; i++) {
+      const z = c - OPT_NEAR_MM + (2 * OPT_NEAR_MM * i) / (OPT_NEAR - 1);
+      if (z >= lo && z <= hi) zs.push(z);
+    }
+  }
+  zs.push(current);
+  zs.sort((a, b) => a - b);
+  const grid = zs.filter((z, i) => i === 0 || z !== zs[i - 1]);
+  const rough = grid.map((z) => score(evaluate(z, thinTravels, thinRoll)));
+
+  let bestZ = current;
+  let bestD = evaluate(current, travels, roll);
+  const consider = (z: number): number => {
+    const d = evaluate(z, travels, roll);
+    const sc = score(d);
+    if (sc < score(bestD) || (sc === score(bestD) && Math.abs(z - current) < Math.abs(bestZ - current))) {
+      bestZ = z;
+      bestD = d;
+    }
+    return sc;
+  };
+
+  // Local minima of the rough scan, best first.
+  const seeds: number[] = [];
+  for (let i = 0; i < grid.length; i++) {
+    const v = rough[i]!;
+    if (!Number.isFinite(v)) continue;
+    if ((i === 0 || v <= rough[i - 1]!) && (i === grid.length - 1 || v <= rough[i + 1]!)) seeds.push(i);
+  }
+  seeds.sort((a, b) => rough[a]! - rough[b]!);
+
+  for (const i of seeds.slice(0, OPT_SEEDS)) {
+    let a = grid[Math.max(0, i - 1)]!;
+    let b = grid[Math.min(grid.length - 1, i + 1)]!;
+    consider(grid[i]!);
+    for (let round = 0; round < 60 && b - a > OPT_TOL_MM; round++) {
+      let bj = 0;
+      let bv = Number.POSITIVE_INFINITY;
+      const pts: number[] = [];
+      for (let k = 0; k < OPT_ZOOM; k++) pts.push(a + ((b - a) * k) / (OPT_ZOOM - 1));
+      pts.forEach((z, k) => {
+        const v = consider(z);
+        if (v < bv) {
+          bv = v;
+          bj = k;
+        }
+      });
+      if (!Number.isFinite(bv)) break;
+      a = pts[Math.max(0, bj - 1)]!;
+      b = pts[Math.min(OPT_ZOOM - 1, bj + 1)]!;
+    }
+  }
+
+  // Feasible heights: the outermost feasible scan points, pushed out by bisection toward their infeasible neighbours.
+  let fMin = bestZ;
+  let fMax = bestZ;
+  let iMin = -1;
+  let iMax = -1;
+  for (let i = 0; i < grid.length; i++) {
+    if (Number.isFinite(rough[i]!)) {
+      if (iMin < 0) iMin = i;
+      iMax = i;
+    }
+  }
+  const feasible = (z: number) => Number.isFinite(score(evaluate(z, travels, roll)));
+  const edge = (inside: number, outside: number): number => {
+    let a = inside;
+    let b = outside;
+    for (let k = 0; k < 50 && Math.abs(b - a) > 1e-6; k++) {
+      const m = (a + b) / 2;
+      if (feasible(m)) a = m;
+      else b = m;
+    }
+    return a;
+  };
+  if (iMin >= 0) {
+    fMin = Math.min(bestZ, iMin > 0 ? edge(grid[iMin]!, grid[iMin - 1]!) : grid[iMin]!);
+    fMax = Math.max(bestZ, iMax < grid.length - 1 ? edge(grid[iMax]!, grid[iMax + 1]!) : grid[iMax]!);
+  }
+  void lineY;
+  return { z: bestZ, d: bestD, min: fMin, max: fMax };
+}
+
+function makeThinRoll(roll: RollTable, keep: number): RollTable {
+  const n = roll.phi.length;
+  const stride = (n - 1) / (keep - 1);
+  const pick = (a: Float64Array) => {
+    const out = new Float64Array(keep);
+    for (let i = 0; i < keep; i++) out[i] = a[Math.round(i * stride)]!;
+    return out;
+  };
+  return { phi: pick(roll.phi), sn: pick(roll.sn), c1: pick(roll.c1), kdy: pick(roll.kdy), kdz: pick(roll.kdz) };
+}
+
+/** D·sin(steer): how far the rim's front edge moves relative to its back edge, same sign as the steer. */
+export function toeAtRim(wheelSteerDeg: number, rimDiameterMm: number): number {
+  return rimDiameterMm * Math.sin(wheelSteerDeg * RAD);
+}
+
 /**
  * Front-view steering-link sweep: lateral axle shift, drag-link error and wheel steer over heave and
  * roll, and candidate lateral-link holes ranked by worst heave steer. Throws GeometryError when the
@@ -202,8 +512,10 @@ export function computeSteeringGeometry(input: SteeringInput): SteeringResult {
 
   const roll: RollPoint[] = [];
   let wr: WorstRoll | null = null;
+  let table: RollTable | null = null;
   if (input.roll) {
     const angles = sweepValues(0 - input.roll.maxDeg, input.roll.maxDeg, input.roll.stepDeg, "roll");
+    table = makeRollTable(angles, K, C);
     const ay = A.y - C.y;
     const az = A.z - C.z;
     const ky = K.y - C.y;
@@ -246,7 +558,10 @@ export function computeSteeringGeometry(input: SteeringInput): SteeringResult {
     angleDifferenceDeg: foldAngle(dragLinkAngleDeg - trackBarAngleDeg),
     heave,
     roll,
-    worst: { heave: worstHeave, roll: wr, overall },
+    worst: { heave: worstHeave, roll: wr, overall, combined: null },
+    // Filled in below, once the sweeps are known.
+    optimum: undefined as unknown as OptimumResult,
+    optimumFrame: undefined as unknown as OptimumResult,
   };
 
   const atFrame = input.candidateEnd === "frame";
@@ -260,24 +575,100 @@ export function computeSteeringGeometry(input: SteeringInput): SteeringResult {
   }
 
   const holes = candidateList(input);
-  if (input.candidateHoles !== undefined || input.holeRange !== undefined) {
+  const rimD = input.rimDiameter;
+  if (rimD !== undefined && rimD > 0) overall.toeAtRimMm = toeAtRim(overall.wheelSteerDeg, rimD);
+
+  // Combined articulation is a grid (heave × roll) per candidate: computed only while it stays within bounds.
+  const wantHoles = input.candidateHoles !== undefined || input.holeRange !== undefined;
+  const gridPoints = table ? travels.length * table.phi.length : 0;
+  const combinedOn = table !== null && gridPoints * (1 + (wantHoles ? holes.length : 0)) <= COMBINED_MAX_EVALUATIONS;
+  if (table && !combinedOn) {
+    result.combinedSkipped = `${(gridPoints * (1 + holes.length)).toLocaleString("en-US")} heave × roll evaluations is more than ${COMBINED_MAX_EVALUATIONS.toLocaleString("en-US")}; use larger steps to see combined articulation`;
+  }
+  const ayNow = A.y - C.y;
+  if (table && combinedOn) {
+    const c = combinedWorst(link.ey, link.ez, link.l2, link.sgn, drag, travels, table, ayNow, A.z - C.z);
+    if (!c) throw unreachable("a link", "under combined heave and roll");
+    const wc: WorstCombined = { travel: c.travel, rollDeg: c.rollDeg, wheelSteerDeg: wheelSteerDeg(c.d, r, "under combined heave and roll"), dragLinkError: c.d };
+    result.worst.combined = wc;
+  }
+
+  // The optimum on each end's hole line: same measure as the answer's heave and roll lists.
+  const optimumOf = (end: "axle" | "frame"): OptimumResult => {
+    const hint = end === "axle" ? (A.y !== F.y ? F.z + slope * (A.y - F.y) : undefined) : F.y !== A.y ? A.z - slope * (A.y - F.y) : undefined;
+    const o = findOptimum(end, F, A, C, drag, r, travels, table, hint);
+    const J = end === "axle" ? { y: A.y, z: o.z } : { y: F.y, z: o.z };
+    const ol = end === "axle" ? makeLink(F, J, "lateral link") : makeLink(J, A, "lateral link");
+    const az = (end === "axle" ? o.z : A.z) - C.z;
+    const dh = heaveWorstD(ol.ey, ol.ez, ol.l2, ol.sgn, drag, travels);
+    const dr = table ? rollWorstD(ol.ey, ol.ez, ol.l2, ol.sgn, drag, table, ayNow, az) : Number.NaN;
+    const dc = table && combinedOn ? combinedWorst(ol.ey, ol.ez, ol.l2, ol.sgn, drag, travels, table, ayNow, az) : null;
+    const steerOrNull = (d: number) => (d === d && Math.abs(d) <= r ? Math.asin(d / r) * DEG : null);
+    const currentWorst = Math.max(Math.abs(worstHeave.wheelSteerDeg), wr ? Math.abs(wr.wheelSteerDeg) : 0);
+    return {
+      end,
+      y: J.y,
+      z: o.z,
+      worstWheelSteerDeg: Math.abs(Math.asin(o.d / r) * DEG),
+      heaveWheelSteerDeg: Math.asin(dh / r) * DEG,
+      rollWheelSteerDeg: table ? steerOrNull(dr) : null,
+      combinedWheelSteerDeg: dc ? steerOrNull(dc.d) : null,
+      barLength: Math.sqrt(ol.l2),
+      currentWorstWheelSteerDeg: currentWorst,
+      feasibleZ: { min: o.min, max: o.max },
+    };
+  };
+  result.optimum = optimumOf("axle");
+  result.optimumFrame = optimumOf("frame");
+
+  if (wantHoles) {
+    const rankBy = input.rankBy === "combined" && !combinedOn ? (table ? "heaveAndRoll" : "heave") : input.rankBy === "heaveAndRoll" && !table ? "heave" : (input.rankBy ?? "heave");
+    result.rankBy = rankBy;
     const ranked: HoleResult[] = [];
     for (const hole of holes) {
       const hl = atFrame
         ? makeLink(hole, A, `lateral link with hole ${hole.label}`)
         : makeLink(F, hole, `lateral link with hole ${hole.label}`);
       const d = worstHeaveError(hl, drag, travels, hole.label);
+      const heaveSteer = wheelSteerDeg(d, r, `with hole ${hole.label}`);
+      const az = (atFrame ? A.z : hole.z) - C.z;
+      const ay = (atFrame ? A.y : hole.y) - C.y;
+      let rollSteer: number | null = null;
+      let combSteer: number | null = null;
+      if (table) {
+        const dr = rollWorstD(hl.ey, hl.ez, hl.l2, hl.sgn, drag, table, ay, az);
+        rollSteer = dr === dr && Math.abs(dr) <= r ? Math.asin(dr / r) * DEG : null;
+        if (combinedOn) {
+          const dc = combinedWorst(hl.ey, hl.ez, hl.l2, hl.sgn, drag, travels, table, ay, az);
+          combSteer = dc && Math.abs(dc.d) <= r ? Math.asin(dc.d / r) * DEG : null;
+        }
+      }
+      // A hole whose link cannot reach in roll ranks last under a ranking that needs roll.
+      const ranked1 =
+        rankBy === "heave"
+          ? heaveSteer
+          : rankBy === "heaveAndRoll"
+            ? rollSteer === null
+              ? Number.POSITIVE_INFINITY
+              : Math.abs(rollSteer) > Math.abs(heaveSteer)
+                ? rollSteer
+                : heaveSteer
+            : (combSteer ?? Number.POSITIVE_INFINITY);
       ranked.push({
         y: hole.y,
         z: hole.z,
         label: hole.label,
         trackBarAngleDeg: atFrame ? linkAngleDeg(hole, A) : linkAngleDeg(F, hole),
-        worstWheelSteerDeg: wheelSteerDeg(d, r, `with hole ${hole.label}`),
+        worstWheelSteerDeg: heaveSteer,
+        rollWheelSteerDeg: rollSteer,
+        combinedWheelSteerDeg: combSteer,
+        rankedWheelSteerDeg: Number.isFinite(ranked1) ? ranked1 : null,
         rank: 0,
       });
     }
     // Array sort is stable, so equal steer keeps input order.
-    ranked.sort((a, b) => Math.abs(a.worstWheelSteerDeg) - Math.abs(b.worstWheelSteerDeg));
+    const key = (h: HoleResult) => (h.rankedWheelSteerDeg === null ? Number.POSITIVE_INFINITY : Math.abs(h.rankedWheelSteerDeg));
+    ranked.sort((a, b) => key(a) - key(b));
     ranked.forEach((h, k) => {
       h.rank = k + 1;
     });

@@ -33,6 +33,13 @@ export interface SteeringInput {
   holeRange?: { zMin: number; zMax: number; pitch: number; y?: number | undefined } | undefined;
   /** Which lateral-link end the candidates replace; "frame" is the frame-bracket variant. */
   candidateEnd?: "axle" | "frame" | undefined;
+  /**
+   * What orders the candidate holes: the largest |wheel steer| over the heave sweep (default), over the heave
+   * and roll sweeps' points, or over combined articulation (every heave point at every roll angle).
+   */
+  rankBy?: "heave" | "heaveAndRoll" | "combined" | undefined;
+  /** Rim diameter, mm: when given, wheel steer is also given as toe at the rim, D·sin(steer). */
+  rimDiameter?: number | undefined;
 }
 
 export interface HeavePoint {
@@ -75,6 +82,8 @@ export interface WorstOverall {
   wheelSteerDeg: number;
   dragLinkError: number;
   steeringWheelDeg?: number;
+  /** D·sin(wheel steer), mm, when a rim diameter D was given: how far the rim's front edge moves against its back. */
+  toeAtRimMm?: number;
 }
 
 export interface HoleResult {
@@ -83,10 +92,49 @@ export interface HoleResult {
   label: string;
   /** Lateral-link angle with this hole, same convention as trackBarAngleDeg. */
   trackBarAngleDeg: number;
-  /** Signed wheel steer at the heave point of largest |steer| (roll is not part of the ranking). */
+  /** Signed wheel steer at the heave point of largest |steer|. */
   worstWheelSteerDeg: number;
-  /** 1 = best (smallest |worstWheelSteerDeg|); ties keep input order. */
+  /** Signed wheel steer at the roll point of largest |steer|; null without a roll sweep. */
+  rollWheelSteerDeg: number | null;
+  /** Signed wheel steer of largest |steer| over every heave point at every roll angle; null when not computed. */
+  combinedWheelSteerDeg: number | null;
+  /** The figure the ranking used (by rankBy), signed; null when the link cannot reach somewhere that ranking needs. */
+  rankedWheelSteerDeg: number | null;
+  /** 1 = best (smallest |rankedWheelSteerDeg|); ties keep input order. */
   rank: number;
+}
+
+/**
+ * The height on a vertical hole line that minimises the largest |wheel steer| over every point the answer
+ * lists in `heave` and in `roll` (each taken on its own, as those arrays are), the bar re-set to each height's
+ * own length. Found by a dense scan of the feasible heights, then nested finer scans around the best.
+ */
+export interface OptimumResult {
+  /** Which lateral-link end moves on the line: "axle" = a new axle bracket, "frame" = a new frame bracket. */
+  end: "axle" | "frame";
+  /** The hole line: y of the current joint of that end. */
+  y: number;
+  /** The best height, mm. */
+  z: number;
+  /** That largest |wheel steer|, degrees, ≥ 0. */
+  worstWheelSteerDeg: number;
+  /** Signed worst over heave alone, over roll alone (null without roll), over combined articulation (null when not computed). */
+  heaveWheelSteerDeg: number;
+  rollWheelSteerDeg: number | null;
+  combinedWheelSteerDeg: number | null;
+  /** Link length with the joint there, mm. */
+  barLength: number;
+  /** The same measure for the joint where it is now (to say how much better the optimum is), ≥ 0. */
+  currentWorstWheelSteerDeg: number;
+  /** Heights on the line where the link reaches at every listed point with steer within the arm. */
+  feasibleZ: { min: number; max: number };
+}
+
+export interface WorstCombined {
+  travel: number;
+  rollDeg: number;
+  wheelSteerDeg: number;
+  dragLinkError: number;
 }
 
 export interface SteeringResult {
@@ -97,7 +145,21 @@ export interface SteeringResult {
   heave: HeavePoint[];
   /** Empty when no roll sweep was asked for. */
   roll: RollPoint[];
-  worst: { heave: WorstHeave; roll: WorstRoll | null; overall: WorstOverall };
+  worst: {
+    heave: WorstHeave;
+    roll: WorstRoll | null;
+    overall: WorstOverall;
+    /** Every heave point at every roll angle: null without roll, or when the grid is over the work limit. */
+    combined: WorstCombined | null;
+  };
+  /** Why combined articulation was not computed, when roll was asked for but the grid was too large. */
+  combinedSkipped?: string;
+  /** The ranking's measure (rankBy as applied: "combined" falls back to "heaveAndRoll" when skipped). */
+  rankBy?: "heave" | "heaveAndRoll" | "combined";
+  /** Best axle-end height on the vertical through the current axle end. */
+  optimum: OptimumResult;
+  /** Best frame-end height on the vertical through the current frame end (raising the frame end instead). */
+  optimumFrame: OptimumResult;
   /** Present when candidates were given; sorted best first. */
   holes?: HoleResult[];
   /**

@@ -46,6 +46,8 @@ export const listJobsQuerySchema = z.object({
   q: z.string().trim().max(100).optional().catch(undefined),
   status: z.enum([...JOB_STATE_VALUES, "open"]).optional().catch(undefined),
   assignee: z.string().trim().max(64).optional().catch(undefined),
+  /** "geometry": only jobs with a geometry step not yet signed (somewhere to save a capture). */
+  needs: z.enum(["geometry"]).optional().catch(undefined),
   dueFrom: z.iso.date().optional().catch(undefined),
   dueTo: z.iso.date().optional().catch(undefined),
   sort: z.enum(["number", "due", "customer", "status", "progress", "updated"]).catch("number"),

@@ -2,7 +2,7 @@
 // link dashed, frame ends as squares, axle ends as rings, axle centre as a crossed circle. Before and
 // after share one scale so a raised bracket reads as a raised line.
 import type { ReactNode } from "react";
-import { Circle, G, Line, Rect, Svg, Text as SvgText, View, Text } from "@react-pdf/renderer";
+import { Circle, G, Line, Path, Rect, Svg, Text as SvgText, View, Text } from "@react-pdf/renderer";
 import type { TravellerRecord } from "./traveller-data";
 import { FIGURE_FONT } from "./fonts";
 import { COLOR, s } from "./theme";
@@ -118,6 +118,62 @@ export function GeometryDiagrams({ before, after, width }: { before: Capture | n
         {after ? <Diagram capture={after} frame={frame} title="After" /> : <View style={{ width: each }} />}
       </View>
       <Legend />
+    </View>
+  );
+}
+
+/**
+ * One chart for both captures: steering-wheel degrees (wheel steer × the capture's ratio; road-wheel degrees
+ * when no ratio was given) over the travel range. Before dashed, after solid, each named at its end, so it
+ * reads in black and white.
+ */
+export function SteeringWheelChart({ before, after, width }: { before: Capture | null; after: Capture | null; width: number }) {
+  type Series = { name: string; c: Capture | null; dash: string | undefined; stroke: string };
+  const all: Series[] = [
+    { name: "before", c: before, dash: "4 2.5", stroke: COLOR.ink2 },
+    { name: "after", c: after, dash: undefined, stroke: COLOR.ink },
+  ];
+  const series = all.filter((x): x is Series & { c: Capture } => !!x.c?.curve?.length);
+  if (!series.length) return null;
+  const wheel = series.every((x) => x.c.steeringRatio !== undefined);
+  const pts = series.map((x) => ({ ...x, pts: x.c.curve!.map(([t, w]) => [t, wheel ? w * x.c.steeringRatio! : w] as const) }));
+  const xs = pts.flatMap((x) => x.pts.map((p) => p[0]));
+  const ys = pts.flatMap((x) => x.pts.map((p) => Math.abs(p[1])));
+  const xMin = Math.min(...xs);
+  const xMax = Math.max(...xs);
+  const yAbs = Math.max(wheel ? 1 : 0.1, ...ys) * 1.1;
+  const H = 120;
+  const pad = { l: 40, r: 44, t: 8, b: 18 };
+  const X = (v: number) => pad.l + ((v - xMin) / Math.max(1e-9, xMax - xMin)) * (width - pad.l - pad.r);
+  const Y = (v: number) => pad.t + ((yAbs - v) / (2 * yAbs)) * (H - pad.t - pad.b);
+  const t = (x: number, y: number, text: string, anchor: "start" | "end" | "middle" = "start") => (
+    <SvgText x={x} y={y} textAnchor={anchor} style={{ fontSize: 6.5, fontFamily: FIGURE_FONT }} fill={COLOR.body}>
+      {text}
+    </SvgText>
+  );
+  return (
+    <View wrap={false} style={{ marginTop: 8 }}>
+      <Text style={[s.label, { marginBottom: 2 }]}>{wheel ? "Steering-wheel angle over the travel range" : "Road-wheel steer over the travel range (no steering ratio given)"}</Text>
+      <Svg width={width} height={H} viewBox={`0 0 ${width} ${H}`}>
+        <Rect x={0} y={0} width={width} height={H} fill={COLOR.panel} />
+        <Line x1={pad.l} y1={Y(0)} x2={width - pad.r} y2={Y(0)} stroke={COLOR.ruleStrong} strokeWidth={0.6} />
+        {xMin <= 0 && xMax >= 0 ? <Line x1={X(0)} y1={pad.t} x2={X(0)} y2={H - pad.b} stroke={COLOR.ruleStrong} strokeWidth={0.6} /> : null}
+        {t(pad.l - 3, Y(yAbs) + 6, `+${yAbs.toFixed(1)}°`, "end")}
+        {t(pad.l - 3, Y(0) + 2, "0°", "end")}
+        {t(pad.l - 3, Y(-yAbs), `-${yAbs.toFixed(1)}°`, "end")}
+        {t(X(xMin), H - 5, `${xMin.toFixed(0)} mm droop`)}
+        {t(X(xMax), H - 5, `bump +${xMax.toFixed(0)} mm`, "end")}
+        {pts.map((x) => {
+          const d = x.pts.map((p, i) => `${i ? "L" : "M"}${X(p[0]).toFixed(1)} ${Y(p[1]).toFixed(1)}`).join(" ");
+          const last = x.pts[x.pts.length - 1]!;
+          return (
+            <G key={x.name}>
+              <Path d={d} fill="none" stroke={x.stroke} strokeWidth={x.name === "after" ? 1.6 : 1.1} {...(x.dash ? { strokeDasharray: x.dash } : {})} />
+              {t(X(last[0]) + 3, Y(last[1]) + (x.name === "after" ? -2 : 7), x.name)}
+            </G>
+          );
+        })}
+      </Svg>
     </View>
   );
 }

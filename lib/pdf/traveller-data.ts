@@ -94,6 +94,10 @@ export const geometryCaptureSchema = z
     worstAtTravelMm: finite.optional(),
     /** the travel range checked, as words, e.g. "−75 to +100 mm" */
     travelText: text(80).optional(),
+    /** steering-wheel degrees per road-wheel degree, when the capture gave one */
+    steeringRatio: finite.optional(),
+    /** [travel mm, wheel steer deg] over the travel range, for the before/after chart */
+    curve: z.array(z.tuple([finite, finite])).max(401).optional(),
   })
   .strict();
 
@@ -308,7 +312,11 @@ export const travellerDataSchema = z
     /** absolute URL the QR code carries and the page prints under it */
     verifyUrl: z.url({ protocol: /^https?$/ }).max(300),
     sections: z.array(sectionSchema).max(100),
-    geometry: z.object({ before: geometryCaptureSchema.nullable(), after: geometryCaptureSchema.nullable() }).strict().nullable().default(null),
+    geometry: z
+      .object({ before: geometryCaptureSchema.nullable(), after: geometryCaptureSchema.nullable(), roadTestNote: text(1500).optional() })
+      .strict()
+      .nullable()
+      .default(null),
     welds: z.array(weldRowSchema).max(500).default([]),
     nonconformances: z.array(nonconformanceSchema).max(500).default([]),
     materials: z

@@ -6,7 +6,7 @@ import type { ReactNode } from "react";
 import { SAFETY_NOTE } from "@/components/safety-note";
 import { registerTravellerFonts } from "./fonts";
 import { formatInstant, formatNumber, printableLines, formatSigned, groupHex, printable, sealShort, wrapUrl } from "./format";
-import { GeometryDiagrams } from "./geometry-diagram";
+import { GeometryDiagrams, SteeringWheelChart } from "./geometry-diagram";
 import { Mark, Verdict, type MarkShape, type VerdictKind } from "./marks";
 import { makeQr, type TravellerQr } from "./qr";
 import { markerShapePath, MARKER_LOOK, seamPath, type MarkerState } from "@/lib/weld-map";
@@ -605,6 +605,12 @@ function GeometrySection({ c, first = false }: { c: Ctx; first?: boolean }) {
             </View>
           </View>
           <GeometryDiagrams before={before} after={after} width={c.contentWidth} />
+          <SteeringWheelChart before={before} after={after} width={c.contentWidth} />
+          {g?.roadTestNote ? (
+            <View wrap={false} style={{ marginTop: 6 }}>
+              <Text style={s.small}>{P(g.roadTestNote)}</Text>
+            </View>
+          ) : null}
         </View>
       )}
     </View>

@@ -3,7 +3,8 @@
 // version with a map exports as. Zod schemas define both; public/schemas/ carries the JSON Schemas generated
 // from them. Version-1 files are read as they always were.
 import { z } from "zod";
-import { duplicateMembers, formatPath, type JsonPath } from "./json-scan";
+import { duplicateMembers, formatPath, jsonDepthExceeds, MAX_JSON_DEPTH, type JsonPath } from "./json-scan";
+import { controlCharacterMessage, controlCharacterPaths } from "@/lib/text-safety";
 import { procedureMetaSchema, versionContentSchema, versionContentV1Schema, type VersionContent } from "./schema";
 
 export const PROCEDURE_FILE_FORMAT = "gusset-procedure";
@@ -160,6 +161,11 @@ export function parseProcedureFile(text: string): FileParse {
   if (!body.trim()) {
     return { ok: false, status: 400, message: "The file is empty.", problems: [{ path: "", where: "the whole file", message: "The file is empty." }] };
   }
+  // Measured before JSON.parse: nesting no procedure needs would otherwise cost every step after it.
+  if (jsonDepthExceeds(body, MAX_JSON_DEPTH)) {
+    const message = `Arrays and objects are nested more than ${MAX_JSON_DEPTH} levels deep; a procedure file never needs that.`;
+    return { ok: false, status: 400, message: `The file is not a Gusset procedure file: ${message}`, problems: [{ path: "", where: "the whole file", message }] };
+  }
   let data: unknown;
   try {
     data = JSON.parse(body);
@@ -177,6 +183,9 @@ export function parseProcedureFile(text: string): FileParse {
     where: describeWhere(data, d.path.slice(0, -1)),
     message: `"${d.name}" appears more than once in the same object; keep one.`,
   }));
+  for (const c of controlCharacterPaths(data)) {
+    problems.push({ path: formatPath(c.path), where: describeWhere(data, c.path), message: controlCharacterMessage(c.code) });
+  }
   const version = (data as { formatVersion?: unknown } | null)?.formatVersion;
   const parsed = (version === 2 ? procedureFileV2Schema : procedureFileV1Schema).safeParse(data);
   if (!parsed.success) {

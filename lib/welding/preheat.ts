@@ -48,7 +48,8 @@ const BANDS: readonly Band[] = [
   { throughIn: Infinity, label: "over 2-1/2 in (63.5 mm)", A: { f: 300, c: 150 }, B: { f: 225, c: 110 } },
 ];
 
-export const PREHEAT_SOURCE = "AWS D1.1/D1.1M:2015 Table 3.3 (D1.1:2020 Table 5.8, from memory)";
+// The 2020 edition's number for this table (5.8) is from memory, so only the checked 2015 number is shown.
+export const PREHEAT_SOURCE = "AWS D1.1/D1.1M:2015 Table 3.3";
 
 /** Table 3.3 note: base metal below 32 °F (0 °C) is preheated to at least 70 °F (20 °C) and kept there. */
 export const BELOW_ZERO_MIN_C = 20;

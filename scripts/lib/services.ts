@@ -21,6 +21,8 @@ export async function startMailCatcher(opts: { port: number; databaseUrl: string
     disabledCommands: ["STARTTLS", "AUTH"],
     logger: false,
     size: 30 * 1024 * 1024,
+    // Connected clients get this long to finish when we stop, then are cut off (the default waits 30 s).
+    closeTimeout: 2_000,
     onData(stream, _session, callback) {
       const chunks: Buffer[] = [];
       stream.on("data", (c: Buffer) => chunks.push(c));
@@ -74,7 +76,12 @@ export async function startObjectStore(opts: { port: number; directory: string; 
   const credentials = { accessKeyId: "S3RVER", secretAccessKey: "S3RVER" };
   await ensureBucket({ endpoint, bucket: opts.bucket, region: "us-east-1", ...credentials });
   log("s3", `local object store on ${endpoint} (bucket ${opts.bucket})`);
-  return { endpoint, ...credentials, stop: () => server.close() };
+  const stop = async () => {
+    // Keep-alive connections from the app would otherwise hold close() open.
+    (server as unknown as { httpServer?: import("node:http").Server }).httpServer?.closeAllConnections();
+    await server.close();
+  };
+  return { endpoint, ...credentials, stop };
 }
 
 export async function ensureBucket(opts: {

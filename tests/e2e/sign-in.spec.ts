@@ -13,6 +13,9 @@ for (const [email, heading, name] of homes) {
     await expect(page.getByRole("heading", { level: 1, name: heading })).toBeVisible();
     await expect(page.getByTestId("account-menu")).toContainText(name);
     await expect(page.getByRole("main")).toContainText("Iron Gully 4x4 Fabrication");
+    // `/home` is the address people bookmark: it leads to the same desk.
+    await page.goto("/home");
+    await expect(page.getByRole("heading", { level: 1, name: heading })).toBeVisible();
   });
 }
 

@@ -4,7 +4,8 @@ import { expect, type Page, test as base } from "@playwright/test";
 export const DEMO_PASSWORD = "demo-gusset-2026";
 export const DEMO_PIN = "2468";
 
-// Every test speaks from its own client address so sign-in rate limits never leak between tests.
+// The app keys its limits by the socket's address and ignores this header (TRUSTED_PROXY_HOPS=0); it stays so
+// that a run against an app behind a trusted proxy still gives each test its own client address.
 export const test = base.extend({
   extraHTTPHeaders: async ({}, provide) => {
     await provide({ "x-forwarded-for": `10.${randomInt(0, 255)}.${randomInt(0, 255)}.${randomInt(1, 254)}` });

@@ -63,6 +63,24 @@ test("an auditor scans a released job's traveller and sees the record intact; a 
   await expect(anon.getByTestId("verdict")).toContainText("Record intact");
   await expect(anon.locator("body")).not.toContainText(body.customerName as string);
   await expect(anon.getByTestId("member-record")).toHaveCount(0);
+  await expect(anon.getByTestId("axle-tag")).toHaveText(body.axleTag as string);
+  await expect(anon.getByTestId("vin-last6")).toHaveText("042788");
+
+  // The seal typed from the paper, with its printed spacing: the paper and the record agree; a wrong one disagrees.
+  const seal = (((await (await anon.request.get(`/api/verify/${token}`)).json()) as { integrity: { seal: string } }).integrity.seal).slice(0, 16);
+  for (const [typed, word, verdict] of [[seal.match(/.{4}/g)!.join(" ").toUpperCase(), "Paper and record agree", "agrees"], ["0123 4567 89ab cdef", "Paper and record disagree", "disagrees"]] as const) {
+    await anon.goto("/scan");
+    await anon.getByLabel("Or type the code printed under the QR").fill(token);
+    await anon.getByTestId("typed-seal").fill(typed);
+    await anon.getByRole("button", { name: "Check the record" }).click();
+    await expect(anon.getByTestId("paper-verdict")).toContainText(word);
+    await expect(anon.getByTestId("paper-verdict")).toHaveAttribute("data-verdict", verdict);
+  }
+  await anon.goto("/scan");
+  await anon.getByLabel("Or type the code printed under the QR").fill(token);
+  await anon.getByTestId("typed-seal").fill("12ab");
+  await anon.getByRole("button", { name: "Check the record" }).click();
+  await expect(anon.getByText("The seal is at least the first 16")).toBeVisible();
   await stranger.close();
   await Promise.all([lead.dispose(), welder.dispose(), inspector.dispose()]);
 });

@@ -28,14 +28,16 @@ describe("sign-in", () => {
     expect(me.json.user).not.toHaveProperty("password");
   });
 
-  it("sets the session cookie HttpOnly, Secure and SameSite", async () => {
+  it("sets the session cookie HttpOnly and SameSite; plain (no Secure) only over http to this computer", async () => {
     const { res, setCookies } = await signIn("lead@irongully.example");
     expect(res.status).toBe(200);
     const sessionCookie = setCookies.find((c) => c.includes("session_token"));
     expect(sessionCookie).toBeDefined();
     expect(sessionCookie).toMatch(/HttpOnly/i);
-    expect(sessionCookie).toMatch(/Secure/i);
     expect(sessionCookie).toMatch(/SameSite=Lax/i);
+    // Safari drops Secure cookies on http://127.0.0.1; HTTPS gets Secure ones (tests/integration/devices.test.ts).
+    expect(sessionCookie).not.toMatch(/;\s*Secure/i);
+    expect(sessionCookie).not.toMatch(/^__Secure-/);
   });
 
   it("refuses a wrong password with 401 and no session", async () => {
@@ -52,7 +54,7 @@ describe("sign-in", () => {
       statuses.push(res.status);
       if (res.status === 429) {
         const body = await res.json();
-        expect(body.message).toMatch(/too many requests/i);
+        expect(body.message).toMatch(/too many failed sign-ins/i);
       }
     }
     expect(statuses.slice(0, 5)).toEqual([401, 401, 401, 401, 401]);

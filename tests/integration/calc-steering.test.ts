@@ -149,3 +149,49 @@ describe("POST /api/calc/steering", () => {
     expect(zero.json.error.reason).toBe("zero_length_link");
   });
 });
+
+describe("POST /api/calc/steering: optimum and the anonymous work limit", () => {
+  it("answers optimum { z, worstWheelSteerDeg } on the axle end's vertical line, and the route's own worst at that z matches it", async () => {
+    const body = {
+      trackBar: { frameEnd: { y: -420, z: 180 }, axleEnd: { y: 480, z: 60 } },
+      dragLink: { pitmanEnd: { y: -400, z: 150 }, knuckleEnd: { y: 440, z: 95 } },
+      axleCenter: { y: 0, z: 0 },
+      steeringArmLength: 160,
+      travel: { bump: 100, droop: 100, step: 5 },
+      roll: { maxDeg: 5, stepDeg: 0.5 },
+    };
+    const r = await api("/api/calc/steering", { body });
+    expect(r.status).toBe(200);
+    const o = r.json.optimum;
+    expect(o.y).toBe(480);
+    expect(o.worstWheelSteerDeg).toBeGreaterThanOrEqual(0);
+    const again = await api("/api/calc/steering", { body: { ...body, trackBar: { ...body.trackBar, axleEnd: { y: 480, z: o.z } } } });
+    const listed = Math.max(...again.json.heave.map((p: { wheelSteerDeg: number }) => Math.abs(p.wheelSteerDeg)), ...again.json.roll.map((p: { wheelSteerDeg: number }) => Math.abs(p.wheelSteerDeg)));
+    expect(Math.abs(listed - o.worstWheelSteerDeg)).toBeLessThan(1e-9);
+    // Better than the bracket as fitted, and every field of before is still there.
+    expect(o.worstWheelSteerDeg).toBeLessThan(Math.abs(r.json.worst.overall.wheelSteerDeg));
+    expect(r.json.worst.combined).not.toBeNull();
+    expect(r.json.optimumFrame.y).toBe(-420);
+  });
+
+  it("refuses each of twenty anonymous 200,000-evaluation sweeps with 413 and a reason; a signed-in member gets the same sweep", async () => {
+    // 2,001 heave points × (1 + 99 holes) = 200,100 link evaluations: over the anonymous 50,000, under the signed-in 1,000,000.
+    const body = {
+      ...layout(),
+      travel: { bump: 100, droop: 100, step: 0.1 },
+      holeRange: { zMin: 0, zMax: 98, pitch: 1 },
+    };
+    let refused = 0;
+    for (let i = 0; i < 20; i++) {
+      const r = await api("/api/calc/steering", { body });
+      if (r.status === 413 || r.status === 429) {
+        refused++;
+        expect(r.json.error.message).toMatch(/link evaluations|Too many/);
+      }
+    }
+    expect(refused).toBe(20);
+    const member = await api("/api/calc/steering", { body, session: await session("auditor@irongully.example") });
+    expect(member.status).toBe(200);
+    expect(member.json.holes).toHaveLength(99);
+  });
+});

@@ -132,6 +132,19 @@ describe("jobs: creation, checklist, list", () => {
     const theirs = await api(`/api/jobs?q=${a.job.number}`, { session: otherLead });
     expect(theirs.json.total).toBe(0);
   });
+
+  it("the list finds a job by the name of the welder on it", async () => {
+    const me = (await api("/api/me", { session: welder })).json;
+    const withWelder = await newJob(versionId, { welderIds: [me.user.id] });
+    const without = await newJob();
+    const surname = String(me.user.name).split(" ").at(-1)!.toLowerCase();
+    const found = await api(`/api/jobs?q=${encodeURIComponent(surname)}&status=planned&pageSize=100&sort=number&dir=desc`, { session: lead });
+    const ids = found.json.jobs.map((j: Rec) => j.id);
+    expect(ids).toContain(withWelder.job.id);
+    expect(ids).not.toContain(without.job.id);
+    const theirs = await api(`/api/jobs?q=${encodeURIComponent(surname)}`, { session: otherLead });
+    expect(theirs.json.jobs.map((j: Rec) => j.id)).not.toContain(withWelder.job.id);
+  });
 });
 
 describe("sign-offs", () => {

@@ -83,13 +83,15 @@ describe("traveller PDF", () => {
   it("carries a QR code (read back from the printed page) whose URL answers with that job", async () => {
     const job = await jobWithTwoSignOffs();
     const url = qrFromFirstPage((await fetchPdf(job.jobId, lead, "letter")).bytes);
-    expect(url).toMatch(new RegExp(`^${BASE_URL}/verify/[A-Za-z0-9_-]{27}$`));
-    const token = url!.split("/verify/")[1]!;
+    // The public address other devices can open (the harness's LAN address), never this computer's loopback one;
+    // it carries the first digits of the seal printed on the paper.
+    expect(url).toMatch(new RegExp(`^${process.env.LAN_URL}/verify/[A-Za-z0-9_-]{27}\?seal=[0-9a-f]{16}$`));
+    const token = new URL(url!).pathname.split("/verify/")[1]!;
     const anon = await api(`/api/verify/${token}`);
     expect(anon.status).toBe(200);
     expect(anon.json).toMatchObject({ jobNumber: job.number, shop: "Iron Gully 4x4 Fabrication", status: expect.any(String), integrity: { intact: true, entries: 2 } });
     expect(anon.json.integrity.seal).toMatch(/^[0-9a-f]{64}$/);
-    const page = await fetch(url!);
+    const page = await fetch(`${BASE_URL}/verify/${token}`);
     expect(page.status).toBe(200);
     expect(await page.text()).toContain("Record intact");
   });
@@ -112,8 +114,11 @@ describe("verify and the seal", () => {
     const job = await jobWithTwoSignOffs();
     const token = await tokenOf(job.jobId);
     const anon = await api(`/api/verify/${token}`);
-    expect(Object.keys(anon.json).sort()).toEqual(["integrity", "jobNumber", "releasedAt", "shop", "status"]);
-    for (const secret of [job.customerName, "test@customer.example", "1M8GDM9AXKP042788", "Mick Tamsin", "Rosa Lindqvist", job.axleTag]) {
+    expect(Object.keys(anon.json).sort()).toEqual(["axleTag", "integrity", "jobNumber", "releasedAt", "shop", "status", "vinLast6"]);
+    // The housing's tag and the VIN's tail let anyone see a traveller moved to another axle; nothing personal.
+    expect(anon.json.axleTag).toBe(job.axleTag);
+    expect(anon.json.vinLast6).toBe("042788");
+    for (const secret of [job.customerName, "test@customer.example", "1M8GDM9AXKP042788", "Mick Tamsin", "Rosa Lindqvist"]) {
       expect(anon.text).not.toContain(secret);
     }
     const page = await (await fetch(`${BASE_URL}/verify/${token}`)).text();
@@ -194,5 +199,29 @@ describe("release", () => {
     expect(v.json.status).toBe("released");
     expect(v.json.releasedAt).toMatch(/^\d{4}-\d{2}-\d{2}T/);
     expect(v.json.integrity).toMatchObject({ intact: true, entries: 3 });
+  });
+});
+
+describe("traveller: steering geometry of the released demo job", () => {
+  it("prints the before and the after capture from their separate steps, the steering-wheel chart and the road-test note", async () => {
+    // The seeded released job (axle tag AX-0318), not one a test released.
+    const list = await api("/api/jobs?status=released&q=AX-0318&pageSize=100", { session: lead });
+    const released = (list.json.jobs as { id: string; number: string }[])[0];
+    expect(released).toBeDefined();
+    const rec = (await api(`/api/jobs/${released!.id}`, { session: lead })).json;
+    const geo = rec.steps.filter((s: { kind: string }) => s.kind === "geometry");
+    // The seeded bracket procedure captures before and after in two steps, both signed.
+    expect(geo.length).toBeGreaterThanOrEqual(2);
+    expect(geo.every((s: { signed: boolean }) => s.signed)).toBe(true);
+    const pdf = await fetchPdf(released!.id, lead);
+    expect(pdf.status).toBe(200);
+    const { text } = await extractText(await getDocumentProxy(pdf.bytes), { mergePages: true });
+    expect(text).toMatch(/Steering geometry/);
+    expect(text).not.toMatch(/not captured/);
+    // Axle end of the lateral link: 120 mm high before, 180 mm after (the seeded captures, y / z mm).
+    expect(text).toMatch(/480\.0 \/ 120\.0/);
+    expect(text).toMatch(/480\.0 \/ 180\.0/);
+    expect(text).toMatch(/Steering-wheel angle over the travel range/i);
+    expect(text).toMatch(/Road test: by the measured geometry/);
   });
 });

@@ -7,8 +7,10 @@ const EXPECTED: Record<Action, string[]> = {
   "shop:read": ["lead", "welder", "inspector", "auditor"],
   "people:read": ["lead"],
   "people:manage": ["lead"],
+  "shop:manage": ["lead"],
   "pin:reset": ["lead"],
   "mailbox:read": ["lead"],
+  "devices:manage": ["lead"],
   "procedure:read": ["lead", "welder", "inspector", "auditor"],
   "procedure:write": ["lead"],
   "job:read": ["lead", "welder", "inspector", "auditor"],
@@ -26,6 +28,9 @@ const EXPECTED: Record<Action, string[]> = {
   "qualification:write": ["lead"],
   "audit:search": ["lead", "inspector", "auditor"],
   "calc:use": ["lead", "welder", "inspector", "auditor"],
+  // Quality figures: everyone reads them; a welder only those of their own work (scoped by the route).
+  "quality:read": ["lead", "welder", "inspector", "auditor"],
+  "quality:shop": ["lead", "inspector", "auditor"],
 };
 
 const principal = (roles: string[], active = true): Principal => ({ userId: "u1", shopId: "s1", roles, active });

@@ -7,6 +7,7 @@ import { requireShop } from "@/lib/auth/context";
 import { JOB_STATE_LABELS, JOB_STATE_VALUES } from "@/lib/jobs/labels";
 import { listJobsQuerySchema } from "@/lib/jobs/schemas";
 import { JobsTable } from "./_components/jobs-table";
+import { todayIso } from "@/lib/jobs/due";
 
 export const metadata: Metadata = { title: "Jobs" };
 
@@ -19,13 +20,13 @@ export default async function JobsPage({ searchParams }: { searchParams: Promise
   const filtered = Boolean(query.q || query.status || query.assignee || query.dueFrom || query.dueTo);
   return (
     <>
-      <PageHeader title="Jobs" lead="Every job of the shop: search by job number, VIN, axle tag or customer.">
+      <PageHeader title="Jobs" lead="Every job of the shop: search by job number, VIN, axle tag, customer or welder.">
         {can(ctx.roles, "job:write") ? <Link href="/jobs/new" className="btn btn-primary" data-testid="new-job">New job</Link> : null}
       </PageHeader>
       <form className="mb-4 grid gap-3 rounded-lg border border-graphite-200 bg-white p-3 md:grid-cols-3 xl:grid-cols-6" role="search" data-testid="jobs-filters">
         <div className="md:col-span-2">
           <label className="field-label" htmlFor="q">Search</label>
-          <input id="q" name="q" defaultValue={query.q} className="field-input" placeholder="GJ-2026-0012, VIN, axle tag, customer" />
+          <input id="q" name="q" defaultValue={query.q} className="field-input" placeholder="GJ-2026-0012, VIN, axle tag, customer, welder" />
         </div>
         <div>
           <label className="field-label" htmlFor="status">State</label>
@@ -58,7 +59,7 @@ export default async function JobsPage({ searchParams }: { searchParams: Promise
           {filtered ? <Link href="/jobs" className="btn btn-quiet">Clear</Link> : null}
         </div>
       </form>
-      <JobsTable rows={rows} total={total} page={query.page} pageSize={query.pageSize} sort={query.sort} dir={query.dir} today={new Date().toISOString().slice(0, 10)} />
+      <JobsTable rows={rows} total={total} page={query.page} pageSize={query.pageSize} sort={query.sort} dir={query.dir} today={todayIso()} />
     </>
   );
 }

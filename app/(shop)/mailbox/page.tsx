@@ -5,6 +5,7 @@ import { PageHeader } from "@/components/page-header";
 import { requireShop } from "@/lib/auth/context";
 import { env } from "@/lib/env";
 import { listCaughtMail } from "@/db/queries/mailbox";
+import { splitMailLinks } from "@/lib/mail/links";
 import Link from "next/link";
 
 export const metadata: Metadata = { title: "Local mailbox" };
@@ -34,7 +35,11 @@ export default async function MailboxPage({ searchParams }: { searchParams: Prom
                   </div>
                   <div className="text-sm text-graphite-600">To {m.toAddress} · from {m.fromAddress}{m.attachments.length ? ` · ${m.attachments.length} attachment(s)` : ""}</div>
                 </summary>
-                <pre className="mt-3 whitespace-pre-wrap rounded bg-graphite-50 p-3 text-sm">{m.textBody}</pre>
+                <pre className="mt-3 whitespace-pre-wrap rounded bg-graphite-50 p-3 text-sm">
+                  {splitMailLinks(m.textBody).map((part, i) =>
+                    part.href ? <a key={i} href={part.href} className="break-all font-semibold underline" data-testid="mail-link">{part.text}</a> : part.text,
+                  )}
+                </pre>
               </details>
             </li>
           ))}

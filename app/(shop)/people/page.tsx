@@ -4,6 +4,9 @@ import { PageHeader } from "@/components/page-header";
 import { ROLE_LABELS } from "@/lib/authz";
 import { requireShop } from "@/lib/auth/context";
 import { listMembers, listOpenInvitations } from "@/db/queries/people";
+import { archiveAddress } from "@/db/queries/shop-settings";
+import { can } from "@/lib/authz";
+import { ArchiveForm } from "./_components/archive-form";
 import { InviteForm } from "./_components/invite-form";
 import { MembersTable } from "./_components/members-table";
 
@@ -19,9 +22,10 @@ const querySchema = z.object({
 export default async function PeoplePage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const ctx = await requireShop("people:read");
   const query = querySchema.parse(await searchParams);
-  const [{ rows, total }, invitations] = await Promise.all([
+  const [{ rows, total }, invitations, archive] = await Promise.all([
     listMembers(ctx.shopId, { q: query.q, page: query.page, pageSize: PAGE_SIZE, includeInactive: query.inactive === "1" }),
     listOpenInvitations(ctx.shopId),
+    can(ctx.roles, "shop:manage") ? archiveAddress(ctx.shopId) : null,
   ]);
   return (
     <>
@@ -48,6 +52,7 @@ export default async function PeoplePage({ searchParams }: { searchParams: Promi
         </div>
         <div className="space-y-4">
           <InviteForm />
+          {archive ? <ArchiveForm email={archive.email} recipients={archive.recipients} /> : null}
           <section className="card p-4" aria-labelledby="inv-h">
             <h2 id="inv-h" className="font-bold">Open invitations</h2>
             {invitations.length === 0 ? (

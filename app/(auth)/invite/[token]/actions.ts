@@ -2,6 +2,7 @@
 import { parseWithZod } from "@conform-to/zod/v4";
 import { acceptInvitation } from "@/db/queries/people";
 import type { FormState } from "@/lib/api/action";
+import { formControlCharacterFields } from "@/lib/api/body";
 import { getSessionUser } from "@/lib/auth/context";
 import { AppError } from "@/lib/errors";
 import { acceptInviteSchema } from "@/lib/schemas/auth";
@@ -9,6 +10,8 @@ import { acceptInviteSchema } from "@/lib/schemas/auth";
 // Open to signed-out visitors on purpose: holding the invitation's token is the permission.
 export async function acceptInvite(_: FormState | undefined, formData: FormData): Promise<FormState> {
   const submission = parseWithZod(formData, { schema: acceptInviteSchema });
+  const control = formControlCharacterFields(formData);
+  if (control) return submission.reply({ formErrors: ["Some text holds an invisible control character; nothing was saved."], fieldErrors: control });
   if (submission.status !== "success") return submission.reply();
   try {
     const me = await getSessionUser();

@@ -7,7 +7,7 @@ import { authClient } from "@/lib/auth/client";
 import { signInSchema } from "@/lib/schemas/auth";
 
 function messageFor(status: number, fallback?: string) {
-  if (status === 429) return "Too many sign-in attempts from here. Wait a minute, then try again.";
+  if (status === 429) return fallback ?? "Too many sign-in attempts from here. Wait a few minutes, then try again.";
   if (status === 401 || status === 400) return "That e-mail and password do not match an account. Check both and try again.";
   if (status === 403) return fallback ?? "This account cannot sign in.";
   return "Sign-in is not available right now. Try again in a moment.";

@@ -2,6 +2,7 @@
 import jsQR from "jsqr";
 import { useRouter } from "next/navigation";
 import { useEffect, useRef, useState } from "react";
+import { normalisePaperSeal, PAPER_SEAL_MIN, sealFromScan, verifyPath } from "@/lib/records/paper-seal";
 import { tokenFromScan } from "@/lib/records/token";
 
 type Detector = { detect: (source: CanvasImageSource) => Promise<{ rawValue: string }[]> };
@@ -15,6 +16,8 @@ export function Scanner() {
   const [message, setMessage] = useState<string | null>(null);
   const [typed, setTyped] = useState("");
   const [typedError, setTypedError] = useState<string | null>(null);
+  const [typedSeal, setTypedSeal] = useState("");
+  const [sealError, setSealError] = useState<string | null>(null);
 
   useEffect(() => {
     if (!running) return;
@@ -27,7 +30,7 @@ export function Scanner() {
       const token = tokenFromScan(text);
       if (token) {
         stopped = true;
-        router.push(`/verify/${token}`);
+        router.push(verifyPath(token, sealFromScan(text)));
       } else setMessage("That code is not a Gusset traveller code.");
     };
     const tick = async () => {
@@ -92,13 +95,20 @@ export function Scanner() {
         onSubmit={(e) => {
           e.preventDefault();
           const token = tokenFromScan(typed);
-          if (!token) return setTypedError("That is not a traveller code: it is the 27 letters and digits printed under the QR, or the whole link.");
-          router.push(`/verify/${token}`);
+          const sealText = typedSeal.trim();
+          const seal = sealText ? normalisePaperSeal(sealText) : sealFromScan(typed);
+          if (!token) setTypedError("That is not a traveller code: it is the 27 letters and digits printed under the QR, or the whole link.");
+          if (sealText && !seal) setSealError(`The seal is at least the first ${PAPER_SEAL_MIN} letters a–f and digits printed beside "Seal"; spaces do not matter.`);
+          if (!token || (sealText && !seal)) return;
+          router.push(verifyPath(token, seal));
         }}
       >
         <label className="field-label" htmlFor="typed">Or type the code printed under the QR</label>
         <input id="typed" className="field-input figures" value={typed} onChange={(e) => { setTyped(e.target.value); setTypedError(null); }} autoComplete="off" aria-invalid={typedError ? true : undefined} aria-describedby="typed-error" />
         <p className="field-error" id="typed-error">{typedError}</p>
+        <label className="field-label" htmlFor="typed-seal">Seal printed on the traveller (optional: compares the paper with the record)</label>
+        <input id="typed-seal" className="field-input figures" value={typedSeal} onChange={(e) => { setTypedSeal(e.target.value); setSealError(null); }} autoComplete="off" inputMode="text" placeholder="e.g. 3f9a 07c1 5be2 d468" aria-invalid={sealError ? true : undefined} aria-describedby="typed-seal-error" data-testid="typed-seal" />
+        <p className="field-error" id="typed-seal-error">{sealError}</p>
         <button type="submit" className="btn btn-quiet min-h-12">Check the record</button>
       </form>
     </div>

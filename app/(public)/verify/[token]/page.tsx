@@ -7,18 +7,44 @@ import { JobWelds } from "@/components/job-welds";
 import { MaterialTable } from "@/components/material-table";
 import { SafetyNote } from "@/components/safety-note";
 import { getJobRecord } from "@/db/queries/jobs-core";
-import { jobIdForToken, publicVerification } from "@/db/queries/records";
+import { jobIdForToken, paperCheck, publicVerification } from "@/db/queries/records";
 import { can } from "@/lib/authz";
 import { getSessionUser, shopContextFor } from "@/lib/auth/context";
 import { AppError } from "@/lib/errors";
 import { clientAddress, limitOrThrow } from "@/lib/rate-limit";
+import type { PaperCheck } from "@/lib/records/paper-seal";
+import { verifyQuerySchema } from "@/lib/records/schemas";
 import { isVerifyToken } from "@/lib/records/token";
 
 export const metadata: Metadata = { title: "Check a traveller", robots: { index: false } };
 export const dynamic = "force-dynamic";
 
-export default async function VerifyPage({ params }: { params: Promise<{ token: string }> }) {
+const PAPER_LOOK = {
+  agrees: { mark: "●", title: "Paper and record agree", box: "border-verdict-pass bg-verdict-passbg text-verdict-pass" },
+  earlier: { mark: "▲", title: "Paper printed earlier", box: "border-verdict-warn bg-verdict-warnbg text-verdict-warn" },
+  disagrees: { mark: "✕", title: "Paper and record disagree", box: "border-verdict-fail bg-verdict-failbg text-verdict-fail" },
+} as const;
+
+function PaperVerdict({ check }: { check: PaperCheck }) {
+  const look = PAPER_LOOK[check.verdict];
+  return (
+    <section data-testid="paper-verdict" data-verdict={check.verdict} className={`rounded-lg border-4 border-dashed p-5 ${look.box}`}>
+      <p className="flex items-center gap-3 text-2xl font-bold">
+        <span aria-hidden="true" className="text-3xl">{look.mark}</span>
+        {look.title}
+      </p>
+      <p className="mt-2 text-graphite-900">{check.message}</p>
+      <p className="mt-2 text-sm text-graphite-800">
+        Seal on the paper: <span className="figures break-all" data-testid="paper-seal">{check.seal}</span>
+      </p>
+    </section>
+  );
+}
+
+export default async function VerifyPage({ params, searchParams }: { params: Promise<{ token: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const { token } = await params;
+  const rawSeal = (await searchParams).seal;
+  const sealQuery = verifyQuerySchema.safeParse({ seal: typeof rawSeal === "string" && rawSeal ? rawSeal : undefined });
   try {
     await limitOrThrow("verify", clientAddress(await headers()), { max: 60, windowSeconds: 60 });
   } catch (error) {
@@ -36,8 +62,11 @@ export default async function VerifyPage({ params }: { params: Promise<{ token: 
   // A member reads the record itself: weld joints with their inspections, and the materials by heat number.
   const record = member && ctx ? await getJobRecord(ctx, found.jobId) : null;
   const intact = v.integrity.intact;
+  const paper = sealQuery.success && sealQuery.data.seal ? paperCheck(v.integrityDetail, sealQuery.data.seal) : null;
   return (
     <article className="space-y-4">
+      {/* The paper is the copy outside the database, so its comparison comes first. */}
+      {paper ? <PaperVerdict check={paper} /> : null}
       <section
         data-testid="verdict"
         className={`rounded-lg border-4 p-5 ${intact ? "border-verdict-pass bg-verdict-passbg text-verdict-pass" : "border-verdict-fail bg-verdict-failbg text-verdict-fail"}`}
@@ -48,12 +77,32 @@ export default async function VerifyPage({ params }: { params: Promise<{ token: 
         </p>
         <p className="mt-2 text-graphite-900">
           {intact
-            ? `All ${v.integrity.entries} signed entries were recomputed and match the seal.`
+            ? `All ${v.integrity.entries} signed entries were recomputed and match the record's own seal${paper && !paper.agrees ? ", which is not the seal on the paper" : ""}.`
             : `${v.integrityDetail.reason ?? "The chain does not verify."} Entries after it cannot be trusted either.`}
         </p>
       </section>
+      {!sealQuery.success ? (
+        <p className="card p-4" data-testid="paper-unreadable">
+          <span aria-hidden="true">▲ </span>The seal in this link cannot be read: {sealQuery.error.issues[0]?.message} The record itself was still checked above.
+        </p>
+      ) : null}
+      {!paper && sealQuery.success ? (
+        <p className="card p-4 text-graphite-700" data-testid="paper-none">
+          No seal from the paper was given, so only the record itself was checked. Scan the traveller&apos;s QR code, or{" "}
+          <Link className="font-semibold underline" href="/scan">type the seal printed on it</Link>, to compare the paper with the record.
+        </p>
+      ) : null}
       <section className="card p-5">
+        <p className="mb-3 text-graphite-700">Check the axle tag and the VIN&apos;s last 6 against the housing and vehicle in front of you: a traveller belongs to one housing.</p>
         <dl className="grid gap-3 sm:grid-cols-2">
+          <div>
+            <dt className="text-sm text-graphite-600">Axle tag</dt>
+            <dd className="figures text-xl font-semibold" data-testid="axle-tag">{v.axleTag || "none recorded"}</dd>
+          </div>
+          <div>
+            <dt className="text-sm text-graphite-600">VIN, last 6</dt>
+            <dd className="figures text-xl font-semibold" data-testid="vin-last6">{v.vinLast6 || "none recorded"}</dd>
+          </div>
           <div>
             <dt className="text-sm text-graphite-600">Job</dt>
             <dd className="figures text-xl font-semibold" data-testid="job-number">{v.jobNumber}</dd>
@@ -71,7 +120,7 @@ export default async function VerifyPage({ params }: { params: Promise<{ token: 
             <dd className="figures">{v.releasedAt ? `${v.releasedAt.slice(0, 16).replace("T", " ")} UTC` : "Not released: work in progress"}</dd>
           </div>
           <div className="sm:col-span-2">
-            <dt className="text-sm text-graphite-600">Seal ({v.integrity.entries} entries)</dt>
+            <dt className="text-sm text-graphite-600">Seal of the record ({v.integrity.entries} entries)</dt>
             <dd className="figures break-all text-sm" data-testid="seal">{v.integrity.seal ?? "no entries yet"}</dd>
           </div>
         </dl>
@@ -103,7 +152,7 @@ export default async function VerifyPage({ params }: { params: Promise<{ token: 
         </section>
       ) : (
         <p className="card p-4 text-graphite-700">
-          Customer, vehicle and people are shown only to members of the shop.{" "}
+          Customer and people are shown only to members of the shop.{" "}
           <Link className="font-semibold underline" href={`/sign-in?next=/verify/${token}`}>Sign in</Link> to see the whole record.
         </p>
       )}

@@ -10,13 +10,17 @@ import { listOpenInvitations, shopActivityPage } from "@/db/queries/people";
 import { describeActivity } from "@/lib/activity";
 import { jobCountsByState, jobsDueSoon, jobsReadyForRelease } from "@/db/queries/jobs";
 import { JOB_STATE_LABELS, JOB_STATE_VALUES } from "@/lib/jobs/labels";
+import { qualityTiles } from "@/db/queries/quality";
+import { percent } from "@/lib/quality/labels";
+import { defaultRange } from "@/lib/quality/schema";
 import { DeskJobList } from "../../jobs/_components/desk-list";
 
 export const metadata: Metadata = { title: "Lead desk" };
 
 export default async function LeadHome() {
   const ctx = await requireShop("people:manage");
-  const [pin, heads, invitations, activity, jobCounts, ready, due] = await Promise.all([
+  const last90 = defaultRange(new Date().toISOString().slice(0, 10));
+  const [pin, heads, invitations, activity, jobCounts, ready, due, quality] = await Promise.all([
     myPinState(ctx.shopId, ctx.userId),
     shopHeadcount(ctx.shopId),
     listOpenInvitations(ctx.shopId),
@@ -24,6 +28,7 @@ export default async function LeadHome() {
     jobCountsByState(ctx.shopId),
     jobsReadyForRelease(ctx.shopId),
     jobsDueSoon(ctx.shopId),
+    qualityTiles(ctx.shopId, last90.from, last90.to),
   ]);
   return (
     <>
@@ -55,6 +60,35 @@ export default async function LeadHome() {
             <DeskJobList jobs={due} empty="No open jobs." href={(j) => `/jobs/${j.id}`} testId="due-jobs" />
           </div>
         </div>
+      </section>
+      <section className="card mb-4 p-4" aria-labelledby="quality-h">
+        <div className="flex flex-wrap items-center justify-between gap-2">
+          <h2 id="quality-h" className="font-bold">Quality, last 90 days</h2>
+          <Link href="/quality" className="btn btn-quiet">Quality screen</Link>
+        </div>
+        <ul className="mt-3 grid gap-3 sm:grid-cols-3" data-testid="quality-tiles">
+          <li>
+            <Link href="/quality#section-yield" className="block min-h-12 rounded-md bg-graphite-50 p-3 hover:bg-graphite-100" data-testid="tile-fpy">
+              <span className="text-sm text-graphite-600">First-pass yield</span>
+              <span className="figures block text-2xl font-semibold">{percent(quality.firstPassYield.ratio)}</span>
+              <span className="figures block text-sm">{quality.firstPassYield.acceptedFirst} of {quality.firstPassYield.inspected} joints</span>
+            </Link>
+          </li>
+          <li>
+            <Link href="/quality#section-nc" className="block min-h-12 rounded-md bg-graphite-50 p-3 hover:bg-graphite-100" data-testid="tile-nc">
+              <span className="text-sm text-graphite-600">Open nonconformances</span>
+              <span className="figures block text-2xl font-semibold">{quality.openNonconformances}</span>
+              <span className="block text-sm">{quality.openNonconformances ? <StatusBadge tone="warn">waiting for a disposition</StatusBadge> : <StatusBadge tone="pass">none open</StatusBadge>}</span>
+            </Link>
+          </li>
+          <li>
+            <Link href="/quality#section-wait" className="block min-h-12 rounded-md bg-graphite-50 p-3 hover:bg-graphite-100" data-testid="tile-wait">
+              <span className="text-sm text-graphite-600">Joints waiting for inspection</span>
+              <span className="figures block text-2xl font-semibold">{quality.waitingNow}</span>
+              <span className="figures block text-sm">{quality.oldestWaitingHours === null ? "none waiting" : `oldest ${quality.oldestWaitingHours} h`}</span>
+            </Link>
+          </li>
+        </ul>
       </section>
       <div className="grid gap-4 md:grid-cols-3">
         <section className="card p-4 md:col-span-2" aria-labelledby="crew-h">

@@ -10,6 +10,7 @@ import { SignOffList } from "@/components/runner/sign-off-list";
 import { StatusBadge } from "@/components/status-badge";
 import { jobActivityPage, jobFormOptions } from "@/db/queries/jobs";
 import { getJobRecord } from "@/db/queries/jobs-core";
+import { verifyJobRecord } from "@/db/queries/records";
 import { can } from "@/lib/authz";
 import { requireShop } from "@/lib/auth/context";
 import { AppError } from "@/lib/errors";
@@ -20,7 +21,8 @@ import type { JobRecord } from "@/lib/jobs/record";
 import { valueSummary } from "@/lib/jobs/summary";
 import { measureBounds, torqueBounds } from "@/lib/jobs/tolerance";
 import { defaultPadUnit, show, type PadQuantity } from "@/lib/jobs/units";
-import type { GeometryValue } from "@/lib/jobs/values";
+import type { GeometryCapture, GeometryValue } from "@/lib/jobs/values";
+import { roadTestNote, worstSteeringWheelDeg } from "@/lib/jobs/geometry";
 import { KIND_LABELS } from "@/lib/procedures/labels";
 import { kindGlyph } from "@/components/runner/glyph";
 import { GeometryChart } from "./_components/geometry-chart";
@@ -59,6 +61,8 @@ export default async function JobPage({ params, searchParams }: { params: Promis
     throw error;
   }
   const j = record.job;
+  // The screen shows signed values from the sealed sign-offs; a stored row that no longer agrees is named here.
+  const integrity = await verifyJobRecord(j.id);
   const state = JOB_STATE_LABELS[j.status];
   const pct = j.stepsTotal ? Math.round((j.stepsSigned / j.stepsTotal) * 100) : 0;
   const open = j.status !== "released" && j.status !== "void";
@@ -68,6 +72,12 @@ export default async function JobPage({ params, searchParams }: { params: Promis
       <PageHeader title={j.number} lead={`${j.customerName} · ${[j.vehicleYear, j.vehicleMakeModel].filter(Boolean).join(" ")} · axle ${j.axleTag}`}>
         <Link href={`/run/${j.id}`} className="btn btn-primary min-h-12 px-5" data-testid="open-runner">{open ? "Open checklist" : "View checklist"}</Link>
       </PageHeader>
+      {!integrity.intact ? (
+        <section className="mb-4 rounded-lg border-4 border-verdict-fail bg-verdict-failbg p-4 text-verdict-fail" data-testid="record-altered">
+          <p className="flex items-center gap-2 text-xl font-bold"><span aria-hidden="true">✕</span>Record altered at entry {integrity.firstBrokenSeq ?? "?"}</p>
+          <p className="mt-1 text-graphite-900">{integrity.reason ?? "The record chain does not verify."} Signed values on this page are the ones sealed at signing.</p>
+        </section>
+      ) : null}
       <div className="grid gap-4 lg:grid-cols-[1fr_20rem]">
         <section className="card p-4" aria-labelledby="hdr-h">
           <h2 id="hdr-h" className="sr-only">Job details</h2>
@@ -208,10 +218,32 @@ function roundSummary(record: JobRecord, o: JobRecord["steps"][number]["signOffs
 
 function MeasurementsTab({ record, system }: { record: JobRecord; system: "metric" | "imperial" }) {
   const rows = record.steps.filter((s) => s.kind === "measure" || s.kind === "torque" || s.kind === "coating");
-  const captures = record.steps.flatMap((s) => {
-    const g = s.kind === "geometry" ? (s.effectiveValue as GeometryValue | null) : null;
-    return (["before", "after"] as const).flatMap((w) => (g?.[w]?.results ? [{ label: `${w === "before" ? "Before" : "After"} · ${s.title}`, which: w, step: s, results: g[w]!.results }] : []));
-  });
+  // Before from the first geometry step that holds one, after from the last (as the traveller prints them).
+  const geoSteps = [...record.steps].sort((a, b) => a.position - b.position).filter((s) => s.kind === "geometry");
+  const pick = (w: "before" | "after") => {
+    const list = w === "before" ? geoSteps : [...geoSteps].reverse();
+    for (const s of list) {
+      const c = (s.effectiveValue as GeometryValue | null)?.[w];
+      if (c?.results && c.input) return { step: s, capture: c };
+    }
+    return null;
+  };
+  const before = pick("before");
+  const after = pick("after");
+  const wheel = [before, after].every((x) => !x || x.capture.input.steeringRatio !== undefined);
+  const scaled = (c: GeometryCapture): GeometryCapture["results"] =>
+    wheel && c.input.steeringRatio !== undefined ? { ...c.results, curve: c.results.curve.map(([t, w]) => [t, w * c.input.steeringRatio!] as [number, number]) } : c.results;
+  const lenUnit = defaultPadUnit("length", system);
+  const pt = (p: { y: number; z: number }) => `${show("length", p.y, lenUnit)} / ${show("length", p.z, lenUnit)}`;
+  const geoRows: { key: string; label: string; get: (c: GeometryCapture) => string }[] = [
+    { key: "lateral-axle-end", label: "Lateral link, axle end (y / z)", get: (c) => pt(c.input.trackBar.axleEnd) },
+    { key: "lateral-frame-end", label: "Lateral link, frame end (y / z)", get: (c) => pt(c.input.trackBar.frameEnd) },
+    { key: "lateral", label: "Lateral link angle", get: (c) => `${c.results.trackBarAngleDeg.toFixed(2)}°` },
+    { key: "drag", label: "Drag link angle", get: (c) => `${c.results.dragLinkAngleDeg.toFixed(2)}°` },
+    { key: "difference", label: "Difference", get: (c) => `${c.results.angleDifferenceDeg.toFixed(2)}°` },
+    { key: "worst", label: "Worst bump steer (road wheel)", get: (c) => `${c.results.worstHeave.wheelSteerDeg.toFixed(2)}° at ${show("length", c.results.worstHeave.travel, lenUnit)}` },
+    { key: "wheel", label: "Worst at the steering wheel", get: (c) => { const w = worstSteeringWheelDeg(c); return w === null ? "no ratio given" : `${w.toFixed(1)}°`; } },
+  ];
   return (
     <div className="space-y-6">
       <section className="card overflow-x-auto" aria-labelledby="meas-h">
@@ -254,25 +286,33 @@ function MeasurementsTab({ record, system }: { record: JobRecord; system: "metri
       </section>
       <section className="space-y-3" aria-labelledby="geo-h">
         <h3 id="geo-h" className="font-bold">Steering geometry: before and after</h3>
-        {captures.length ? (
+        {before || after ? (
           <>
             <div className="card overflow-x-auto">
               <table className="w-full text-left" data-testid="geometry-table">
-                <thead className="bg-graphite-100 text-sm"><tr><th className="px-3 py-1">Capture</th><th className="px-3 py-1">Lateral link</th><th className="px-3 py-1">Drag link</th><th className="px-3 py-1">Difference</th><th className="px-3 py-1">Worst bump steer</th></tr></thead>
-                <tbody>
-                  {captures.map((c) => (
-                    <tr key={c.label} className="border-t border-graphite-100">
-                      <td className="px-3 py-2 font-semibold">{c.label}</td>
-                      <td className="figures px-3 py-2">{c.results.trackBarAngleDeg.toFixed(2)}°</td>
-                      <td className="figures px-3 py-2">{c.results.dragLinkAngleDeg.toFixed(2)}°</td>
-                      <td className="figures px-3 py-2">{c.results.angleDifferenceDeg.toFixed(2)}°</td>
-                      <td className="figures px-3 py-2">{c.results.worstHeave.wheelSteerDeg.toFixed(2)}° at {show("length", c.results.worstHeave.travel, defaultPadUnit("length", system))}</td>
+                <thead className="bg-graphite-100 text-sm">
+                  <tr>
+                    <th scope="col" className="px-3 py-1">Figure</th>
+                    <th scope="col" className="px-3 py-1 text-right">Before{before ? ` · ${before.step.title}` : ""}</th>
+                    <th scope="col" className="px-3 py-1 text-right">After{after ? ` · ${after.step.title}` : ""}</th>
+                  </tr>
+                </thead>
+                <tbody className="figures">
+                  {geoRows.map((r) => (
+                    <tr key={r.label} className="border-t border-graphite-100">
+                      <th scope="row" className="px-3 py-2 text-left font-sans font-semibold">{r.label}</th>
+                      <td className="px-3 py-2 text-right" data-testid={`geo-before-${r.key}`}>{before ? r.get(before.capture) : "not captured yet"}</td>
+                      <td className="px-3 py-2 text-right" data-testid={`geo-after-${r.key}`}>{after ? r.get(after.capture) : "not captured yet"}</td>
                     </tr>
                   ))}
                 </tbody>
               </table>
             </div>
-            <GeometryChart series={captures.map((c) => ({ label: c.which === "before" ? `before (${c.step.position})` : `after (${c.step.position})`, results: c.results }))} />
+            <GeometryChart
+              wheel={wheel}
+              series={[before ? { label: "before", results: scaled(before.capture) } : null, after ? { label: "after", results: scaled(after.capture) } : null].filter((x): x is { label: string; results: GeometryCapture["results"] } => x !== null)}
+            />
+            <p className="card p-4 text-sm" data-testid="road-test-note">{roadTestNote(before?.capture ?? null, after?.capture ?? null)}</p>
           </>
         ) : (
           <p className="card p-4">No geometry captured yet.</p>

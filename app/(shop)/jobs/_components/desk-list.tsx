@@ -2,9 +2,12 @@
 import Link from "next/link";
 import { StatusBadge } from "@/components/status-badge";
 import type { DeskJob } from "@/db/queries/jobs";
+import { DUE_CUE_LABELS, dueCue, todayIso } from "@/lib/jobs/due";
 import { JOB_STATE_LABELS } from "@/lib/jobs/labels";
 
 export function DeskJobList<J extends DeskJob>({ jobs, empty, href, extra, testId }: { jobs: J[]; empty: string; href: (j: J) => string; extra?: (j: J) => React.ReactNode; testId: string }) {
+  const today = todayIso();
+  const cue = (j: J) => dueCue(j.dueDate, today, j.status);
   if (!jobs.length) return <p className="mt-2 text-graphite-700" data-testid={testId}>{empty}</p>;
   return (
     <ul className="mt-2 divide-y divide-graphite-100" data-testid={testId}>
@@ -14,6 +17,7 @@ export function DeskJobList<J extends DeskJob>({ jobs, empty, href, extra, testI
             <span>
               <span className="figures font-bold">{j.number}</span> · {j.customerName}
               <span className="block text-sm text-graphite-700">{j.vehicle} · axle {j.axleTag}{j.dueDate ? ` · due ${j.dueDate}` : ""}</span>
+              {cue(j) ? <span className="block text-sm font-semibold" data-testid="due-cue">{DUE_CUE_LABELS[cue(j)!]}</span> : null}
               {extra ? <span className="block text-sm font-semibold">{extra(j)}</span> : null}
             </span>
             <span className="flex items-center gap-2">

@@ -7,6 +7,7 @@ import { usePathname, useSearchParams } from "next/navigation";
 import { StatusBadge } from "@/components/status-badge";
 import { JOB_STATE_LABELS } from "@/lib/jobs/labels";
 import type { JobListRow } from "@/lib/jobs/record";
+import { DUE_CUE_LABELS, dueCue } from "@/lib/jobs/due";
 
 type SortKey = "number" | "due" | "customer" | "status" | "progress" | "updated";
 
@@ -82,11 +83,11 @@ export function JobsTable({ rows, total, page, pageSize, sort, dir, today }: { r
       header: () => <SortHeader label="Due" sortKey="due" sort={sort} dir={dir} />,
       cell: ({ row }) => {
         const { dueDate, status } = row.original;
-        const late = dueDate !== null && dueDate < today && status !== "released" && status !== "void";
+        const cue = dueCue(dueDate, today, status);
         return (
           <span className="figures whitespace-nowrap">
             {dueDate ?? "—"}
-            {late ? <span className="block font-sans text-sm font-semibold text-verdict-warn">▲ overdue</span> : null}
+            {cue ? <span className={`block font-sans text-sm font-semibold ${cue === "overdue" ? "text-verdict-warn" : ""}`} data-testid="due-cue">{DUE_CUE_LABELS[cue]}</span> : null}
           </span>
         );
       },

@@ -3,11 +3,12 @@ import type { ColumnDef } from "@tanstack/react-table";
 import { DataTable } from "@/components/data-table";
 import { StatusBadge } from "@/components/status-badge";
 import { ROLE_LABELS, type Role } from "@/lib/authz";
-import { ActiveForm, PinResetForm, RolesForm } from "./member-actions";
+import { ActiveForm, LegalNameForm, PinResetForm, RolesForm } from "./member-actions";
 
 export type MemberView = {
   membershipId: string;
   name: string;
+  legalName: string;
   email: string;
   roles: Role[];
   active: boolean;
@@ -21,8 +22,10 @@ const columns: ColumnDef<MemberView, unknown>[] = [
     header: "Person",
     cell: ({ row }) => (
       <div>
-        <div className="font-semibold">{row.original.name}{row.original.isMe ? " (you)" : ""}</div>
+        <div className="font-semibold">{row.original.legalName}{row.original.isMe ? " (you)" : ""}</div>
+        {row.original.name !== row.original.legalName ? <div className="text-sm text-graphite-600">Account name: {row.original.name}</div> : null}
         <div className="text-sm text-graphite-600">{row.original.email}</div>
+        {row.original.active ? <div className="mt-1"><LegalNameForm membershipId={row.original.membershipId} legalName={row.original.legalName} /></div> : null}
         <div className="mt-1">
           {row.original.active ? <StatusBadge tone="pass">Active</StatusBadge> : <StatusBadge tone="idle">Deactivated</StatusBadge>}
         </div>

@@ -11,8 +11,14 @@ import { isGeometryError } from "@/lib/geometry";
  * GeometryError carries its reason; a RangeError from a library means the schema let through something the
  * function refuses, which is still the caller's input, not our fault.
  */
-export function calcRoute<S extends z.ZodType>(schema: S, compute: (body: z.output<S>) => unknown) {
-  return publicRoute({ body: schema }, async ({ body }) => {
+export function calcRoute<S extends z.ZodType>(
+  schema: S,
+  compute: (body: z.output<S>) => unknown,
+  /** Optional gate before computing (a tighter work limit for callers without a session, say). */
+  admit?: (body: z.output<S>, principal: () => Promise<unknown>) => Promise<void>,
+) {
+  return publicRoute({ body: schema }, async ({ body, ctx }) => {
+    if (admit) await admit(body as z.output<S>, () => ctx.principal());
     try {
       return compute(body as z.output<S>);
     } catch (error) {

@@ -9,6 +9,12 @@ import { holeRangeCount, steeringInputSchema, sweepCount } from "@/lib/geometry"
  */
 export const STEERING_WORK_BUDGET = 1_000_000;
 
+/**
+ * Without a session the same route allows far less: a screen's worth of layout (41 points × 5 holes is about
+ * 250) fits many times over, a bulk sweep does not. Signed-in members keep STEERING_WORK_BUDGET.
+ */
+export const ANONYMOUS_WORK_BUDGET = 50_000;
+
 export function steeringWork(v: z.output<typeof steeringInputSchema>): number {
   const heave = sweepCount(-v.travel.droop, v.travel.bump, v.travel.step);
   const roll = v.roll ? sweepCount(-v.roll.maxDeg, v.roll.maxDeg, v.roll.stepDeg) : 0;

@@ -1,5 +1,6 @@
 import "server-only";
 import { z } from "zod";
+import { assertJsonContentType, readBodyText as readLimitedText } from "@/lib/api/body";
 import { AppError } from "@/lib/errors";
 
 const idSchema = z.string().uuid();
@@ -18,24 +19,9 @@ export function versionNumberFrom(params: Record<string, unknown>, name = "n"): 
   return parsed.data;
 }
 
-// Reads at most `limit` bytes of a request body, so an oversized upload is refused without being held whole.
+// Reads at most `limit` bytes of a request body (counted as it streams), so an oversized upload is refused
+// without being held whole. The body is a JSON file, so only JSON is taken.
 export async function readBodyText(req: Request, limit: number): Promise<string> {
-  const declared = Number(req.headers.get("content-length") ?? "0");
-  const tooLarge = () => new AppError("payload_too_large", `The file is larger than ${Math.round(limit / 1024)} KB; nothing was saved.`);
-  if (declared > limit) throw tooLarge();
-  if (!req.body) return "";
-  const reader = req.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let size = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    size += value.byteLength;
-    if (size > limit) {
-      await reader.cancel();
-      throw tooLarge();
-    }
-    chunks.push(value);
-  }
-  return new TextDecoder("utf-8").decode(Buffer.concat(chunks));
+  assertJsonContentType(req);
+  return readLimitedText(req, limit, `The file is larger than ${Math.round(limit / 1024)} KB; nothing was saved.`);
 }

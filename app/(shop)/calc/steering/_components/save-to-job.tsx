@@ -23,7 +23,7 @@ export function SaveToJob({ state }: { state: SteeringFormState }) {
   const [saving, setSaving] = useState(false);
 
   useEffect(() => {
-    void json("/api/jobs?status=open&pageSize=100").then((r) => setJobs(r.status === 200 ? (r.body.jobs as JobOption[]) : []));
+    void json("/api/jobs?status=open&needs=geometry&pageSize=100").then((r) => setJobs(r.status === 200 ? (r.body.jobs as JobOption[]) : []));
   }, []);
 
   useEffect(() => {
@@ -53,7 +53,7 @@ export function SaveToJob({ state }: { state: SteeringFormState }) {
   return (
     <section className="card mt-6 max-w-4xl space-y-3 p-4" aria-labelledby="save-h" data-testid="save-to-job">
       <h2 id="save-h" className="font-bold">Save to a job</h2>
-      <p className="text-sm text-graphite-700">Records this layout in a job&apos;s geometry step; the job page then shows before against after.</p>
+      <p className="text-sm text-graphite-700">Records this layout in a job&apos;s geometry step; the job page then shows before against after. Only open jobs with a geometry step still to capture are listed.</p>
       <div className="flex flex-wrap items-end gap-3">
         <div>
           <label className="field-label" htmlFor="save-job">Job</label>
@@ -62,7 +62,7 @@ export function SaveToJob({ state }: { state: SteeringFormState }) {
               setSteps([]);
               setStepId("");
             }}>
-            <option value="">{jobs === null ? "Loading jobs…" : jobs.length ? "Choose a job" : "No open jobs"}</option>
+            <option value="">{jobs === null ? "Loading jobs…" : jobs.length ? "Choose a job" : "No open job has a geometry step to capture"}</option>
             {(jobs ?? []).map((j) => <option key={j.id} value={j.id}>{j.number} · {j.customerName}</option>)}
           </select>
         </div>

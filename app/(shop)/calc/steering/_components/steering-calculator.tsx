@@ -2,8 +2,12 @@
 import { useDeferredValue, useMemo, useState } from "react";
 import { Checkbox, FixList, Segmented, TextField } from "@/components/calc/fields";
 import { Figure } from "@/components/calc/figure";
+import { GUIDE_ORDER, GUIDE_TEXT, MeasureGuideDrawing } from "@/components/calc/measure-guide";
 import {
   convertSteeringForm,
+  emptyFloor,
+  floorFromPoints,
+  plausibility,
   emptySteeringForm,
   exampleSteeringForm,
   POINT_LABELS,
@@ -12,9 +16,10 @@ import {
   type PointKey,
   type SteeringFormState,
 } from "@/components/calc/steering-request";
+import type { SteeringRequest } from "@/app/api/calc/steering/schema";
 import { figure, shown, symbolFor, type UnitSystem } from "@/components/calc/values";
 import { StatusBadge } from "@/components/status-badge";
-import { computeSteeringGeometry, isGeometryError, type SteeringInput, type SteeringResult } from "@/lib/geometry";
+import { computeSteeringGeometry, isGeometryError, toeAtRim, type OptimumResult, type SteeringInput, type SteeringResult } from "@/lib/geometry";
 import { fromSI, preferredUnit } from "@/lib/units";
 import { HoleTable } from "./hole-table";
 import { nearestIndex, poseAt, type SweepMode } from "./pose";
@@ -51,6 +56,36 @@ const E = { metric: 2, imperial: 3 } as const;
 
 let holeSeq = 100;
 
+/** The best height on the hole line, how much better it is than the joint as fitted, and the other end's best. */
+function OptimumCard({ optimum, other, units, ratio, rim }: { optimum: OptimumResult; other: OptimumResult; units: UnitSystem; ratio: number | undefined; rim: number | undefined }) {
+  const gain = optimum.currentWorstWheelSteerDeg - optimum.worstWheelSteerDeg;
+  const at = (v: number) => [
+    ratio !== undefined ? `${figure(v * ratio, 1)}° at the steering wheel` : null,
+    rim !== undefined ? `${shown("length", toeAtRim(v, rim), units, { metric: 1, imperial: 3 })} toe at the rim` : null,
+  ].filter(Boolean).join(", ");
+  const endName = (o: OptimumResult) => (o.end === "axle" ? "axle-end" : "frame-end");
+  return (
+    <div className="card space-y-2 border-graphite-900 p-4" data-testid="optimum-card">
+      <p className="flex flex-wrap items-center gap-2">
+        <StatusBadge tone="info">drill here</StatusBadge>
+        <span className="font-bold">
+          New {endName(optimum)} hole at height <span className="figures" data-testid="optimum-card-z">{shown("length", optimum.z, units, L)}</span>
+        </span>
+      </p>
+      <p className="text-sm text-graphite-950">
+        On the vertical through the {endName(optimum)} joint as fitted (<span className="figures">y {shown("length", optimum.y, units, L)}</span>), with the bar set to <span className="figures">{shown("length", optimum.barLength, units, L)}</span>:
+        largest wheel steer over the heave and roll points <strong className="figures" data-testid="optimum-steer">{figure(optimum.worstWheelSteerDeg, 2)}°</strong>
+        {at(optimum.worstWheelSteerDeg) ? <> ({at(optimum.worstWheelSteerDeg)})</> : null}, against <span className="figures">{figure(optimum.currentWorstWheelSteerDeg, 2)}°</span> as fitted
+        {gain > 0.005 ? <>: <strong className="figures">{figure(gain, 2)}°</strong> less.</> : ": the joint is already at its best height."}
+      </p>
+      <p className="text-sm text-graphite-700">
+        Or move the {endName(other)} instead: height <span className="figures" data-testid="optimum-other-z">{shown("length", other.z, units, L)}</span> gives <span className="figures">{figure(other.worstWheelSteerDeg, 2)}°</span>.
+        The link reaches over the whole sweep from <span className="figures">{shown("length", optimum.feasibleZ.min, units, L)}</span> to <span className="figures">{shown("length", optimum.feasibleZ.max, units, L)}</span> on this line; outside that it cannot be fitted.
+      </p>
+    </div>
+  );
+}
+
 /**
  * `initial` and `onStateChange` are for a job's geometry step (before/after), to be wired later: the state is
  * plain JSON, and toSteeringRequest(state) gives the body of POST /api/calc/steering.
@@ -70,6 +105,7 @@ export function SteeringCalculator({
     onStateChange?.(next);
   };
   const [touched, setTouched] = useState<ReadonlySet<string>>(() => new Set());
+  const [guideStep, setGuideStep] = useState(0);
   const [mode, setMode] = useState<SweepMode>("heave");
   const [travelAt, setTravelAt] = useState(0);
   const [rollAt, setRollAt] = useState(0);
@@ -78,6 +114,7 @@ export function SteeringCalculator({
   const units = state.units;
   const lenUnit = symbolFor("length", units);
   const errors = computed.kind === "invalid" ? computed.errors : {};
+  const floorMode = state.entry === "floor" && state.floor !== undefined;
 
   // An empty field says so once it has been visited; anything typed and wrong says so at once.
   const errorFor = (key: string): string | undefined => {
@@ -142,6 +179,10 @@ export function SteeringCalculator({
     mm === 0 ? "ride height" : `${shown("length", mm, units, { metric: 1, imperial: 2 }, { sign: true })} ${mm > 0 ? "bump" : "droop"}`;
   const poseText = pose ? (pose.mode === "heave" ? atLabel(pose.at) : `${figure(pose.at, 1, { sign: true })}° roll`) : "";
   const best = ok?.result.holes?.[0];
+  // The best height for the end the holes are for; the other end's best is offered beside it.
+  const optimum = ok ? (ok.input.candidateEnd === "frame" ? ok.result.optimumFrame : ok.result.optimum) : null;
+  const otherOptimum = ok ? (ok.input.candidateEnd === "frame" ? ok.result.optimum : ok.result.optimumFrame) : null;
+  const warnings = ok ? plausibility(ok.input as SteeringRequest, state) : [];
   const ratio = ok?.input.steeringRatio;
   const fixList = Object.entries(errors).map(([key, message]) => ({ id: typeof getText(state, key) === "string" ? fieldId(key) : undefined, label: steeringFieldLabel(key), message }));
 
@@ -150,6 +191,14 @@ export function SteeringCalculator({
       <section className="min-w-0 space-y-4" aria-labelledby="steer-results-h">
         <h2 id="steer-results-h" className="sr-only">Front view</h2>
         {computed.kind === "invalid" ? <FixList items={fixList} testId="steer-fix-list" /> : null}
+        {warnings.length ? (
+          <div className="rounded-md border-2 border-graphite-900 bg-verdict-warnbg p-3" data-testid="steer-plausibility">
+            <p className="font-bold"><span aria-hidden="true">▲ </span>Check these readings</p>
+            <ul className="ml-5 list-disc text-sm">
+              {warnings.map((w) => <li key={w}>{w}</li>)}
+            </ul>
+          </div>
+        ) : null}
         {computed.kind === "impossible" ? (
           <div className="rounded-md border-2 border-verdict-fail bg-white p-4" data-testid="steer-impossible">
             <StatusBadge tone="fail">Cannot be computed</StatusBadge>
@@ -158,7 +207,8 @@ export function SteeringCalculator({
           </div>
         ) : null}
         {ok && pose ? (
-            <div className="card space-y-3 p-4">
+          <div className="grid items-start gap-4 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]" data-testid="steer-side-by-side">
+            <div className="card min-w-0 space-y-3 p-4">
             <div className="flex flex-wrap items-center justify-between gap-2">
               <h3 className="font-bold">Front view at <span className="figures" data-testid="pose-label">{poseText}</span></h3>
               {ok.result.roll.length ? (
@@ -175,7 +225,7 @@ export function SteeringCalculator({
                 />
               ) : null}
             </div>
-            <SteeringDiagram input={ok.input} result={ok.result} pose={pose} units={units} bestHole={best} />
+            <SteeringDiagram input={ok.input} result={ok.result} pose={pose} units={units} bestHole={best} optimum={optimum!} />
             <p className="text-xs text-graphite-700">
               To scale; <span aria-hidden="true">━</span> lateral link (solid), <span aria-hidden="true">▭</span> drag link (open), ◆ best hole, dashed: ride height.
               Housing and brackets are drawn only to place the points.
@@ -211,7 +261,50 @@ export function SteeringCalculator({
               </dl>
             </div>
           </div>
+          <div className="min-w-0 space-y-3">
+            {ok.result.holes?.length ? (
+              <section aria-labelledby="ranking-h" className="min-w-0 space-y-2" data-testid="ranking-panel">
+                <div className="flex flex-wrap items-center justify-between gap-2">
+                  <h3 id="ranking-h" className="text-lg font-bold">Hole ranking</h3>
+                  {ok.result.roll.length ? (
+                    <Segmented
+                      legend="Rank by"
+                      testId="steer-rank-by"
+                      value={ok.result.rankBy ?? "heave"}
+                      onChange={(rankBy) => update((s) => ({ ...s, rankBy }))}
+                      options={[
+                        { value: "heave", label: "Heave" },
+                        { value: "heaveAndRoll", label: "Heave, roll" },
+                        ...(ok.result.worst.combined ? [{ value: "combined" as const, label: "Both together" }] : []),
+                      ]}
+                    />
+                  ) : null}
+                </div>
+                <p className="text-sm text-graphite-700">
+                  Largest wheel steer over {ok.result.rankBy === "combined" ? "heave and roll together (each heave point at each roll angle)" : ok.result.rankBy === "heaveAndRoll" ? "the heave sweep and the roll sweep" : `the heave sweep (${atLabel(-ok.input.travel.droop)} to ${atLabel(ok.input.travel.bump)})`}, smallest first.
+                  {best ? <> Best: <strong data-testid="best-hole">{best.label}</strong>.</> : null}
+                </p>
+                <HoleTable
+                  result={ok.result}
+                  units={units}
+                  ratio={ratio}
+                  rimDiameter={ok.input.rimDiameter}
+                  optimum={optimum!}
+                  fixedEnd={ok.input.candidateEnd === "frame" ? ok.input.trackBar.axleEnd : ok.input.trackBar.frameEnd}
+                  currentEnd={ok.input.candidateEnd === "frame" ? ok.input.trackBar.frameEnd : ok.input.trackBar.axleEnd}
+                />
+                {ok.result.combinedSkipped ? <p className="text-sm text-graphite-700">Combined articulation not worked out: {ok.result.combinedSkipped}.</p> : null}
+              </section>
+            ) : (
+              <section className="min-w-0 space-y-2" data-testid="ranking-panel">
+                <h3 className="text-lg font-bold">Best height</h3>
+                <p className="text-sm text-graphite-700">Add candidate holes to rank bracket positions.</p>
+              </section>
+            )}
+            <OptimumCard optimum={optimum!} other={otherOptimum!} units={units} ratio={ratio} rim={ok.input.rimDiameter} />
 
+          </div>
+          </div>
         ) : null}
       </section>
 
@@ -237,6 +330,98 @@ export function SteeringCalculator({
           </p>
         </div>
 
+        <div className="card space-y-3 p-4">
+          <Segmented
+            legend="Enter the joints as"
+            testId="steer-entry"
+            value={floorMode ? "floor" : "coordinates"}
+            onChange={(entry) =>
+              update((s) => ({ ...s, entry, drive: s.drive ?? "lhd", floor: s.floor ?? (entry === "floor" ? emptyFloor() : undefined) }))
+            }
+            options={[
+              { value: "floor", label: "Floor and centre line" },
+              { value: "coordinates", label: "Coordinates" },
+            ]}
+          />
+          {floorMode ? (
+            <Segmented
+              legend="The vehicle is"
+              testId="steer-drive"
+              value={state.drive ?? "lhd"}
+              onChange={(drive) => update((s) => ({ ...s, drive }))}
+              options={[
+                { value: "lhd", label: "Left-hand drive" },
+                { value: "rhd", label: "Right-hand drive" },
+              ]}
+            />
+          ) : null}
+          {floorMode ? null : (
+            <button type="button" className="btn btn-quiet" onClick={() => update((s) => ({ ...s, entry: "floor", drive: s.drive ?? "lhd", floor: floorFromPoints(s, s.drive ?? "lhd") }))}>
+              Copy these points into the floor guide
+            </button>
+          )}
+        </div>
+
+        {floorMode && state.floor ? (
+          <fieldset className="card space-y-3 p-4" data-testid="measure-guide">
+            <legend className="px-1 text-lg font-bold">Measuring guide</legend>
+            {(() => {
+              const key = GUIDE_ORDER[Math.min(guideStep, GUIDE_ORDER.length - 1)]!;
+              const f = state.floor[key];
+              const text = GUIDE_TEXT[key];
+              const setF = (patch: Partial<typeof f>) => update((s) => ({ ...s, floor: { ...s.floor!, [key]: { ...s.floor![key], ...patch } } }));
+              return (
+                <div className="space-y-3">
+                  <p className="text-sm font-semibold text-graphite-700" data-testid="guide-step">Point {guideStep + 1} of {GUIDE_ORDER.length}</p>
+                  <h4 className="text-lg font-bold" data-testid="guide-title">{text.title}</h4>
+                  <MeasureGuideDrawing point={key} />
+                  <p className="text-sm text-graphite-950">{text.what}</p>
+                  <p className="text-sm text-graphite-700">{text.tape} Vehicle at ride height on a level floor, wheels straight ahead. Any mix of units reads: <span className="figures">12 3/8 in</span>, <span className="figures">12-3/8&quot;</span>, <span className="figures">314 mm</span>.</p>
+                  <div className="grid grid-cols-2 gap-x-3">
+                    {lengthField(`floor.${key}.height`, "Height from the floor", f.height, (v) => setF({ height: v }), { signed: false })}
+                    {lengthField(`floor.${key}.distance`, "From the centre line", f.distance, (v) => setF({ distance: v }), { signed: false })}
+                  </div>
+                  <Segmented
+                    legend="On the"
+                    testId={`st-floor-${key}-side`}
+                    value={f.side}
+                    onChange={(side) => setF({ side })}
+                    options={[
+                      { value: "driver", label: "driver's side" },
+                      { value: "passenger", label: "passenger side" },
+                    ]}
+                  />
+                  <div className="flex flex-wrap gap-2">
+                    <button type="button" className="btn btn-quiet" data-testid="guide-back" disabled={guideStep === 0} onClick={() => setGuideStep((i) => Math.max(0, i - 1))}>
+                      <span aria-hidden="true">◀</span> Back
+                    </button>
+                    <button type="button" className="btn btn-primary" data-testid="guide-next" disabled={guideStep >= GUIDE_ORDER.length - 1} onClick={() => setGuideStep((i) => Math.min(GUIDE_ORDER.length - 1, i + 1))}>
+                      Next point <span aria-hidden="true">▶</span>
+                    </button>
+                  </div>
+                  <ol className="grid gap-1 text-sm" aria-label="Points measured">
+                    {GUIDE_ORDER.map((k, i) => {
+                      const done = state.floor![k].height.trim() !== "" && state.floor![k].distance.trim() !== "";
+                      return (
+                        <li key={k}>
+                          <button type="button" className={`flex min-h-11 w-full items-center gap-2 rounded-md px-2 text-left ${i === guideStep ? "bg-graphite-100 font-bold" : ""}`} onClick={() => setGuideStep(i)}>
+                            <span aria-hidden="true">{done ? "●" : "○"}</span>
+                            {POINT_LABELS[k]}
+                            <span className="figures ml-auto text-graphite-700">{done ? `${state.floor![k].height} up · ${state.floor![k].distance} ${state.floor![k].side === "driver" ? "driver" : "passenger"}` : "to measure"}</span>
+                          </button>
+                        </li>
+                      );
+                    })}
+                  </ol>
+                  {lengthField("axleWidth", "Axle width (optional)", state.axleWidth ?? "", (v) => update((s) => ({ ...s, axleWidth: v })), { signed: false, hint: "wheel-mount face to face, for the length check" })}
+                </div>
+              );
+            })()}
+          </fieldset>
+        ) : null}
+
+        {floorMode ? null : (
+        <>
         <fieldset className="card space-y-3 p-4">
           <legend className="px-1 text-lg font-bold">Lateral link (track bar)</legend>
           {pointRow("frameEnd", "fixed to the frame")}
@@ -249,9 +434,12 @@ export function SteeringCalculator({
           {pointRow("knuckleEnd", "steering arm ball")}
         </fieldset>
 
+        </>
+        )}
+
         <fieldset className="card space-y-3 p-4">
           <legend className="px-1 text-lg font-bold">Axle and steering</legend>
-          {pointRow("axleCenter", "roll turns the axle about it")}
+          {floorMode ? null : pointRow("axleCenter", "roll turns the axle about it")}
           <div className="grid grid-cols-2 gap-x-3">
             {lengthField("steeringArmLength", "Steering arm length", state.steeringArmLength, (v) => update((s) => ({ ...s, steeringArmLength: v })), { signed: false, hint: "ball to steering axis" })}
             <TextField
@@ -266,6 +454,7 @@ export function SteeringCalculator({
               hint="wheel ° per road-wheel °"
             />
           </div>
+          {lengthField("rimDiameter", "Rim diameter (optional)", state.rimDiameter ?? "", (v) => update((s) => ({ ...s, rimDiameter: v })), { signed: false, hint: "for toe at the rim, e.g. 17 in" })}
         </fieldset>
 
         <fieldset className="card space-y-3 p-4">
@@ -306,8 +495,8 @@ export function SteeringCalculator({
                 onChange={(v) => update((s) => ({ ...s, holes: s.holes.map((x, j) => (j === i ? { ...x, label: v } : x)) }))}
                 error={errorFor(`holes.${i}.label`)}
               />
-              {lengthField(`holes.${i}.y`, <><span className="sr-only">Hole {i + 1} </span>y</>, h.y, (v) => update((s) => ({ ...s, holes: s.holes.map((x, j) => (j === i ? { ...x, y: v } : x)) })))}
-              {lengthField(`holes.${i}.z`, <><span className="sr-only">Hole {i + 1} </span>z</>, h.z, (v) => update((s) => ({ ...s, holes: s.holes.map((x, j) => (j === i ? { ...x, z: v } : x)) })))}
+              {floorMode ? <p className="mt-8 text-sm text-graphite-700">on the {state.candidateEnd === "frame" ? "frame" : "axle"} end&apos;s line</p> : lengthField(`holes.${i}.y`, <><span className="sr-only">Hole {i + 1} </span>y</>, h.y, (v) => update((s) => ({ ...s, holes: s.holes.map((x, j) => (j === i ? { ...x, y: v } : x)) })))}
+              {lengthField(`holes.${i}.z`, <><span className="sr-only">Hole {i + 1} </span>{floorMode ? "height" : "z"}</>, h.z, (v) => update((s) => ({ ...s, holes: s.holes.map((x, j) => (j === i ? { ...x, z: v } : x)) })))}
               <button
                 type="button"
                 className="btn btn-quiet mt-6 px-3"
@@ -388,25 +577,6 @@ export function SteeringCalculator({
 
       {ok ? (
         <section className="min-w-0 space-y-4" aria-label="Hole ranking and sweep figures">
-            {ok.result.holes?.length ? (
-              <section aria-labelledby="ranking-h" className="space-y-2">
-                <h3 id="ranking-h" className="text-lg font-bold">Hole ranking</h3>
-                <p className="text-sm text-graphite-700">
-                  By the largest wheel steer over the heave sweep ({atLabel(-ok.input.travel.droop)} to {atLabel(ok.input.travel.bump)}); roll is not part of the ranking.
-                  {best ? <> Best: <strong data-testid="best-hole">{best.label}</strong>.</> : null}
-                </p>
-                <HoleTable
-                  result={ok.result}
-                  units={units}
-                  ratio={ratio}
-                  fixedEnd={ok.input.candidateEnd === "frame" ? ok.input.trackBar.axleEnd : ok.input.trackBar.frameEnd}
-                  currentEnd={ok.input.candidateEnd === "frame" ? ok.input.trackBar.frameEnd : ok.input.trackBar.axleEnd}
-                />
-              </section>
-            ) : (
-              <p className="text-sm text-graphite-700">Add candidate holes to rank bracket positions.</p>
-            )}
-
             <details className="card p-4">
               <summary className="flex min-h-11 cursor-pointer items-center font-semibold">
                 Every point of the heave sweep ({ok.result.heave.length.toLocaleString("en-US")}{ok.result.heave.length > 2001 ? ", the first 2,001 listed" : ""})

@@ -1,5 +1,5 @@
 "use client";
-import type { HoleResult, Point2, SteeringInput, SteeringResult } from "@/lib/geometry";
+import type { HoleResult, OptimumResult, Point2, SteeringInput, SteeringResult } from "@/lib/geometry";
 import { fromSI, preferredUnit } from "@/lib/units";
 import { figure, shown, type UnitSystem } from "@/components/calc/values";
 import { poseAt, type Pose } from "./pose";
@@ -96,12 +96,15 @@ export function SteeringDiagram({
   pose,
   units,
   bestHole,
+  optimum,
 }: {
   input: SteeringInput;
   result: SteeringResult;
   pose: Pose;
   units: UnitSystem;
   bestHole: HoleResult | undefined;
+  /** The best height on the hole line, marked "drill here" (carried by the axle when it is an axle-end hole). */
+  optimum?: OptimumResult;
 }) {
   const F = input.trackBar.frameEnd;
   const A = input.trackBar.axleEnd;
@@ -122,8 +125,10 @@ export function SteeringDiagram({
   for (const p of [poseAt(input, result, "heave", 0), poseAt(input, result, "heave", result.heave.length - 1), poseAt(input, result, "roll", 0), poseAt(input, result, "roll", result.roll.length - 1), ride]) {
     if (p) extremes.push(p);
   }
-  const carried = [...body.tube, ...body.plate, ...body.arm, A, K, ...axleHoles];
-  const all: Point2[] = [F, P, C, ...(onFrame ? holes : [])];
+  const opt = optimum ? { y: optimum.y, z: optimum.z } : null;
+  const optOnAxle = optimum?.end === "axle";
+  const carried = [...body.tube, ...body.plate, ...body.arm, A, K, ...axleHoles, ...(opt && optOnAxle ? [opt] : [])];
+  const all: Point2[] = [F, P, C, ...(onFrame ? holes : []), ...(opt && !optOnAxle ? [opt] : [])];
   for (const e of extremes) for (const q of carried) all.push(e.carry(q));
   const b = bounds(all);
   const width0 = b.maxY - b.minY;
@@ -225,6 +230,21 @@ export function SteeringDiagram({
           );
         })}
       </g>
+
+      {/* The best height: a cross in a square, with its words, so it reads without colour. */}
+      {opt
+        ? (() => {
+            const q = optOnAxle ? at(opt) : opt;
+            const r = 8 * k;
+            return (
+              <g data-testid="diagram-optimum">
+                <rect x={q.y - r} y={-q.z - r} width={2 * r} height={2 * r} fill="#f1f6cf" stroke={INK} strokeWidth={2} vectorEffect="non-scaling-stroke" />
+                <path d={`M${q.y - r} ${-q.z - r} L${q.y + r} ${-q.z + r} M${q.y + r} ${-q.z - r} L${q.y - r} ${-q.z + r}`} stroke={INK} strokeWidth={1.5} vectorEffect="non-scaling-stroke" />
+                {label({ y: q.y - 14 * k, z: q.z }, `drill here ${shown("length", opt.z, units, { metric: 1, imperial: 2 })}`, 4, "end", true)}
+              </g>
+            );
+          })()
+        : null}
 
       <FrameMount at={F} k={k} id="frame-end" />
       <FrameMount at={P} k={k} id="pitman-end" />

@@ -9,7 +9,7 @@ const STYLES = [
   { stroke: "#2d5aa6", dash: "12 4 2 4", marker: "diamond" },
 ] as const;
 
-export function GeometryChart({ series }: { series: { label: string; results: GeometryResults }[] }) {
+export function GeometryChart({ series, wheel = false }: { series: { label: string; results: GeometryResults }[]; wheel?: boolean }) {
   if (!series.length) return null;
   const W = 640;
   const H = 260;
@@ -19,12 +19,12 @@ export function GeometryChart({ series }: { series: { label: string; results: Ge
   const ys = pts.map((p) => p[1]);
   const xMin = Math.min(...xs);
   const xMax = Math.max(...xs);
-  const yAbs = Math.max(0.1, ...ys.map(Math.abs));
+  const yAbs = Math.max(wheel ? 1 : 0.1, ...ys.map(Math.abs));
   const x = (v: number) => pad.l + ((v - xMin) / Math.max(1e-9, xMax - xMin)) * (W - pad.l - pad.r);
   const y = (v: number) => pad.t + ((yAbs - v) / (2 * yAbs)) * (H - pad.t - pad.b);
   return (
     <figure className="card p-3">
-      <svg viewBox={`0 0 ${W} ${H}`} className="w-full" role="img" aria-label="Wheel steer against suspension travel for each capture">
+      <svg viewBox={`0 0 ${W} ${H}`} className="w-full" role="img" aria-label={wheel ? "Steering-wheel angle against suspension travel, before and after" : "Wheel steer against suspension travel for each capture"} data-testid="geometry-chart">
         <line x1={pad.l} x2={W - pad.r} y1={y(0)} y2={y(0)} stroke="#7b8380" />
         <line x1={x(0)} x2={x(0)} y1={pad.t} y2={H - pad.b} stroke="#7b8380" />
         <text x={pad.l - 6} y={y(yAbs) + 4} textAnchor="end" fontSize="12" fill="#171b1a">{yAbs.toFixed(2)}°</text>
@@ -43,7 +43,7 @@ export function GeometryChart({ series }: { series: { label: string; results: Ge
           );
         })}
       </svg>
-      <figcaption className="mt-1 text-sm text-graphite-700">Wheel steer (°) from droop to bump; a flat line at 0 means no bump steer.</figcaption>
+      <figcaption className="mt-1 text-sm text-graphite-700">{wheel ? "Steering-wheel angle (°)" : "Wheel steer (°), no steering ratio given,"} from droop to bump; a flat line at 0 means no bump steer.</figcaption>
     </figure>
   );
 }

@@ -1,6 +1,7 @@
 import { NextResponse } from "next/server";
 import { addPhoto } from "@/db/queries/jobs-photos";
 import { getJobRecord } from "@/db/queries/jobs-core";
+import { readMultipart } from "@/lib/api/body";
 import { shopRoute } from "@/lib/api/route";
 import { AppError } from "@/lib/errors";
 import { PHOTO_MAX_BYTES, photoFieldsSchema } from "@/lib/jobs/schemas";
@@ -22,14 +23,8 @@ export const GET = shopRoute({ action: "job:read" }, async ({ ctx, params }) => 
 export const POST = shopRoute({ action: "job:read" }, async ({ ctx, params, req }) => {
   authorizeChecklistWork(ctx);
   const jobId = idParam(params, "id", "Job");
-  // Multipart adds a little around the file; anything far over the limit is refused before it is read.
-  if (Number(req.headers.get("content-length") ?? "0") > PHOTO_MAX_BYTES + 64 * 1024) throw new AppError("payload_too_large", TOO_BIG);
-  let form: FormData;
-  try {
-    form = await req.formData();
-  } catch {
-    throw new AppError("bad_request", "Send the photo as multipart form data with a `file` field.");
-  }
+  // Multipart adds a little around the file; the limit is counted while the upload streams in.
+  const form = await readMultipart(req, PHOTO_MAX_BYTES + 64 * 1024, TOO_BIG);
   const file = form.get("file");
   if (!(file instanceof File) || file.size === 0) throw new AppError("bad_request", "No photo in the upload.", { file: ["Choose or take a photo."] });
   if (file.size > PHOTO_MAX_BYTES) throw new AppError("payload_too_large", TOO_BIG);

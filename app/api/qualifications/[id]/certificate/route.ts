@@ -1,4 +1,5 @@
 import { certificateOf, qualificationExists, setCertificate } from "@/db/queries/qualifications";
+import { readMultipart } from "@/lib/api/body";
 import { shopRoute } from "@/lib/api/route";
 import { AppError } from "@/lib/errors";
 import { getObject, putObject } from "@/lib/storage";
@@ -15,17 +16,10 @@ const MULTIPART_SLACK = 64 * 1024;
 export const POST = shopRoute({ action: "qualification:write" }, async ({ ctx, params, req }) => {
   const id = qualificationIdParam(params);
   await qualificationExists(ctx.shopId, id);
-  const length = Number(req.headers.get("content-length") ?? "0");
-  if (length > CERTIFICATE_MAX_BYTES + MULTIPART_SLACK) throw new AppError("payload_too_large", "A certificate may be at most 20 MB.", { file: ["At most 20 MB."] });
   if (!(req.headers.get("content-type") ?? "").toLowerCase().startsWith("multipart/form-data")) {
     throw new AppError("unsupported_media_type", "Send the certificate as multipart/form-data with a `file` field.");
   }
-  let form: FormData;
-  try {
-    form = await req.formData();
-  } catch {
-    throw new AppError("bad_request", "The upload could not be read as a form.");
-  }
+  const form = await readMultipart(req, CERTIFICATE_MAX_BYTES + MULTIPART_SLACK, "A certificate may be at most 20 MB.");
   const file = form.get("file");
   if (!(file instanceof Blob)) throw new AppError("bad_request", "Choose the certificate file.", { file: ["Choose the certificate file."] });
   if (file.size > CERTIFICATE_MAX_BYTES) throw new AppError("payload_too_large", "A certificate may be at most 20 MB.", { file: ["At most 20 MB."] });

@@ -1,0 +1,2 @@
+CREATE INDEX "weld_inspection_shop_inspected_idx" ON "weld_inspection" USING btree ("shop_id","inspected_at");--> statement-breakpoint
+CREATE INDEX "weld_pass_shop_recorded_idx" ON "weld_pass" USING btree ("shop_id","recorded_at");
