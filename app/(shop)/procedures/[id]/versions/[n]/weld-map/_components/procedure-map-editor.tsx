@@ -44,13 +44,13 @@ export function ProcedureMapEditor({ base, images, jointIds, joints }: { base: s
     <div className="space-y-4">
       <section className="rounded border border-graphite-300 bg-graphite-50 p-3" aria-labelledby="add-image-h">
         <h2 id="add-image-h" className="font-semibold">Add an image</h2>
-        <p className="text-sm text-graphite-700">A photo or drawing of the part as PNG or JPEG (SVG and PDF are not taken), or a plain drawing made here.</p>
+        <p className="text-sm text-graphite-700">A photo or drawing of the part as PNG or JPEG, a PDF drawing (its first page is used), or a plain drawing made here. SVG files are not taken.</p>
         <div className="mt-2 flex flex-wrap items-center gap-3">
           <label className="inline-flex min-h-12 cursor-pointer items-center rounded border-2 border-graphite-400 bg-white px-3">
             Upload a photo or drawing
             <input
               type="file"
-              accept="image/png,image/jpeg,image/webp"
+              accept="image/png,image/jpeg,image/webp,application/pdf"
               className="sr-only"
               data-testid="weld-map-upload"
               onChange={(e) => {

@@ -13,7 +13,8 @@ export const dynamic = "force-dynamic";
 const TOO_BIG = `An image is at most ${PHOTO_MAX_BYTES / 1024 / 1024} MB.`;
 
 // POST /api/procedures/{id}/versions/{n}/weld-map/images → 201 { image, version }
-// multipart `file` (PNG, JPEG, WebP; SVG and PDF refused with 415), or JSON { drawing } made in Gusset.
+// multipart `file` (PNG, JPEG, WebP, or a PDF whose first page is taken; SVG refused with 415), or JSON
+// { drawing } made in Gusset.
 // Only a draft takes images (409 otherwise).
 export const POST = shopRoute({ action: "procedure:write" }, async ({ ctx, params, req }) => {
   const ref = { shopId: ctx.shopId, procedureId: procedureIdFrom(params), number: versionNumberFrom(params) };
@@ -22,7 +23,7 @@ export const POST = shopRoute({ action: "procedure:write" }, async ({ ctx, param
   if (Number(req.headers.get("content-length") ?? "0") > PHOTO_MAX_BYTES + 64 * 1024) throw new AppError("payload_too_large", TOO_BIG);
   const type = req.headers.get("content-type") ?? "";
   let processed;
-  let source: "upload" | "drawing";
+  let source: "upload" | "pdf" | "drawing";
   let label = "";
   if (type.startsWith("application/json")) {
     let json: unknown;
@@ -46,7 +47,7 @@ export const POST = shopRoute({ action: "procedure:write" }, async ({ ctx, param
     if (!(file instanceof File) || file.size === 0) throw new AppError("bad_request", "No image in the upload.", { file: ["Choose an image."] });
     if (file.size > PHOTO_MAX_BYTES) throw new AppError("payload_too_large", TOO_BIG);
     processed = await processMapImage(Buffer.from(await file.arrayBuffer()));
-    source = "upload";
+    source = processed.originalType === "application/pdf" ? "pdf" : "upload";
     label = String(form.get("label") ?? "").trim().slice(0, 120);
   }
   const image = await storeProcedureImage({ shopId: ctx.shopId, procedureId: ref.procedureId, actorId: ctx.userId, processed, source, label });
