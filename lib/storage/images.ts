@@ -1,7 +1,7 @@
 import "server-only";
 // Photos are judged by their bytes, never by name or declared type, then re-encoded: the stored JPEG has no
 // metadata at all (no location, no camera serial), is turned upright, and gets a thumbnail beside it.
-import { execFile } from "node:child_process";
+import { execFile, type ExecFileException } from "node:child_process";
 import { createHash } from "node:crypto";
 import { mkdtemp, readFile, rm, stat, writeFile } from "node:fs/promises";
 import { tmpdir } from "node:os";
@@ -121,7 +121,7 @@ export async function pdfFirstPage(bytes: Buffer): Promise<Buffer> {
   try {
     const input = path.join(dir, "in.pdf");
     await writeFile(input, bytes);
-    const failure = await new Promise<NodeJS.ErrnoException | null>((resolve) => {
+    const failure = await new Promise<ExecFileException | null>((resolve) => {
       execFile(
         "pdftoppm",
         ["-q", "-f", "1", "-l", "1", "-singlefile", "-png", "-scale-to", String(PDF_PAGE_SIDE), input, path.join(dir, "page")],
@@ -132,7 +132,7 @@ export async function pdfFirstPage(bytes: Buffer): Promise<Buffer> {
     if (failure?.code === "ENOENT") {
       throw new AppError("unsupported_media_type", "PDF drawings cannot be read on this computer (poppler's pdftoppm is not installed). Save the drawing's first page as PNG or JPEG and upload that.");
     }
-    if (failure && (failure as { killed?: boolean }).killed) {
+    if (failure?.killed) {
       throw new AppError("unprocessable", "This PDF took too long to draw. Save its first page as PNG or JPEG and upload that.");
     }
     const out = path.join(dir, "page.png");
