@@ -18,6 +18,7 @@ export function RecordWeldMap({ record, highlight, testId = "job-weld-map", titl
         states={jointStates(record.steps)}
         highlight={highlight}
         testId={testId}
+        maxHeight="45vh"
       />
     </section>
   );

@@ -11,7 +11,7 @@ export function WeldMapEditor({ images, jointIds, initial, onSave, saveLabel = "
   const [joints, setJoints] = useState<MapMarker[]>(initial);
   const [selected, setSelected] = useState<string | undefined>(jointIds.find((id) => !initial.some((j) => j.jointId === id)) ?? jointIds[0]);
   const [seam, setSeam] = useState(false);
-  const [message, setMessage] = useState<string | null>(null);
+  const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
   const [busy, setBusy] = useState(false);
   const dragging = useRef<string | null>(null);
 
@@ -63,7 +63,7 @@ export function WeldMapEditor({ images, jointIds, initial, onSave, saveLabel = "
     setMessage(null);
     const problem = await onSave(joints);
     setBusy(false);
-    setMessage(problem ?? "Saved.");
+    setMessage(problem ? { ok: false, text: problem } : { ok: true, text: "Saved." });
   };
 
   const unplaced = jointIds.filter((id) => !joints.some((j) => j.jointId === id));
@@ -110,8 +110,8 @@ export function WeldMapEditor({ images, jointIds, initial, onSave, saveLabel = "
         <button type="button" onClick={save} disabled={busy} className="min-h-12 rounded bg-graphite-950 px-5 font-bold text-white" data-testid="weld-map-save">
           {busy ? "Saving…" : saveLabel}
         </button>
-        <span className="field-error" data-testid="weld-map-message" role="status">
-          {message}
+        <span className={message?.ok ? "font-semibold text-graphite-950" : "field-error"} data-testid="weld-map-message" role="status">
+          {message ? `${message.ok ? "✓" : "⚠"} ${message.text}` : null}
         </span>
       </div>
     </div>

@@ -20,6 +20,7 @@ export function WeldMapView({
   onTap,
   onMarkerDown,
   testId = "weld-map",
+  maxHeight,
 }: {
   images: MapImage[];
   joints: MapMarker[];
@@ -28,6 +29,8 @@ export function WeldMapView({
   onTap?: (imageId: string, p: MapPoint) => void;
   onMarkerDown?: (jointId: string, e: React.PointerEvent) => void;
   testId?: string;
+  /** a CSS length the drawn image may not exceed in height (e.g. "45vh"), so a map beside a form leaves room for it */
+  maxHeight?: string;
 }) {
   return (
     <div className="space-y-3" data-testid={testId}>
@@ -39,7 +42,7 @@ export function WeldMapView({
           <figure key={img.id} className="rounded border border-graphite-300 bg-white p-2">
             <div
               className={`relative w-full select-none ${onTap ? "cursor-crosshair touch-manipulation" : ""}`}
-              style={{ aspectRatio: `${img.width} / ${img.height}` }}
+              style={{ aspectRatio: `${img.width} / ${img.height}`, ...(maxHeight ? { maxWidth: `calc(${maxHeight} * ${img.width} / ${img.height})` } : {}) }}
               data-testid={`${testId}-image-${n + 1}`}
               onClick={
                 onTap
@@ -89,7 +92,7 @@ export function WeldMapView({
                 <span aria-hidden="true">{SHAPE_CHAR[state]}</span>
                 <span className="figures font-semibold">{j.jointId}</span>
                 <span>{markerWord(state)}</span>
-                {highlight === j.jointId ? <span className="sr-only">(this step)</span> : null}
+                {highlight === j.jointId ? <span className="font-normal">(this step)</span> : null}
               </li>
             );
           })}

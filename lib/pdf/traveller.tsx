@@ -779,7 +779,16 @@ function WeldSection({ c }: { c: Ctx }) {
 
 // ───────────────────────────── weld map ─────────────────────────────
 
-const MAP_SHAPE_CHAR: Record<MarkerState, string> = { planned: "\u25cb", welding: "\u25cf", awaiting_inspection: "\u25c6", repair: "\u25b2", accepted: "\u25a0" };
+// The embedded fonts have no ● ◆ ▲ ■: the legend and the table draw each state's marker as the map does.
+function MapMark({ state, size = 9 }: { state: MarkerState; size?: number }) {
+  return (
+    <Svg width={size} height={size} viewBox="0 0 20 20">
+      <Path d={markerShapePath(MARKER_LOOK[state].shape, 10, 10, 6.5)} fill={state === "accepted" ? COLOR.ink : COLOR.white} stroke={COLOR.ink} strokeWidth={2.2} />
+    </Svg>
+  );
+}
+
+const LEGEND: MarkerState[] = ["welding", "awaiting_inspection", "repair", "accepted"];
 
 /** Each image once with every joint on it marked (shape by state) and labelled, then the list of joints. */
 function WeldMapSection({ c }: { c: Ctx }) {
@@ -789,9 +798,15 @@ function WeldMapSection({ c }: { c: Ctx }) {
   return (
     <View break>
       <SectionHead n="4a" title="Weld map" />
-      <Text style={[s.small, { color: COLOR.body, marginBottom: 6 }]}>
-        Where each weld joint is on the part. Marker shape by state: {"\u25cf"} welding, {"\u25c6"} waiting for inspection, {"\u25b2"} sent back for repair, {"\u25a0"} accepted.
-      </Text>
+      <View style={{ flexDirection: "row", flexWrap: "wrap", alignItems: "center", marginBottom: 6 }}>
+        <Text style={[s.small, { color: COLOR.body, marginRight: 4 }]}>Where each weld joint is on the part. Marker shape by state:</Text>
+        {LEGEND.map((st) => (
+          <View key={st} style={{ flexDirection: "row", alignItems: "center", marginRight: 8 }}>
+            <MapMark state={st} />
+            <Text style={[s.small, { color: COLOR.body, marginLeft: 2 }]}>{st === "repair" ? "sent back for repair" : MARKER_LOOK[st].word}</Text>
+          </View>
+        ))}
+      </View>
       {map.images.map((img, n) => {
         let w = c.contentWidth;
         let h = (w * img.height) / img.width;
@@ -828,7 +843,7 @@ function WeldMapSection({ c }: { c: Ctx }) {
         cols={WELD_MAP_COLS}
         empty="No joints placed."
         rows={[...map.joints]
-          .sort((a, b) => Number(a.jointId.slice(1)) - Number(b.jointId.slice(1)))
+          .sort((a, b) => a.jointId.localeCompare(b.jointId, "en", { numeric: true }))
           .map((j) => (
             <View key={j.jointId} style={s.tr} wrap={false}>
               <Cell flex={1}>
@@ -841,7 +856,10 @@ function WeldMapSection({ c }: { c: Ctx }) {
                 <Text style={s.mono}>{`${Math.round(j.x * 100)} % across, ${Math.round(j.y * 100)} % down${j.path ? ", seam line" : ""}`}</Text>
               </Cell>
               <Cell flex={2}>
-                <Text>{`${MAP_SHAPE_CHAR[j.state]} ${MARKER_LOOK[j.state].word}`}</Text>
+                <View style={{ flexDirection: "row", alignItems: "center" }}>
+                  <MapMark state={j.state} />
+                  <Text style={{ marginLeft: 3 }}>{MARKER_LOOK[j.state].word}</Text>
+                </View>
               </Cell>
             </View>
           ))}

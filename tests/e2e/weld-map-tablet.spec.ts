@@ -114,7 +114,7 @@ test("a lead places two joints by tapping; the welder's runner and the inspector
   for (const id of ["W1", "W2"]) await expect(lead.getByTestId(`weld-map-edit-joint-${id}`)).toContainText(`${id}not started`);
   for (const b of ["place-W1", "place-W2", "weld-map-save", "weld-map-draw"]) expect((await lead.getByTestId(b).boundingBox())!.height, b).toBeGreaterThanOrEqual(48);
   await lead.getByTestId("weld-map-save").tap();
-  await expect(lead.getByTestId("weld-map-message")).toHaveText("Saved.");
+  await expect(lead.getByTestId("weld-map-message")).toHaveText("✓ Saved.");
   await lead.screenshot({ path: info.outputPath("weld-map-lead-1024x768.png"), fullPage: true });
   await lead.setViewportSize({ width: 768, height: 1024 });
   await lead.reload();
