@@ -7,6 +7,7 @@ import path from "node:path";
 import sharp from "sharp";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { jobBody } from "../fixtures/jobs/procedure";
+import { uploadFixture } from "./jobs-support";
 import { drawingPdf } from "../fixtures/weld-map/pdf";
 import { api, BASE_URL, session, withDb, type Session } from "./support";
 
@@ -79,7 +80,7 @@ describe("released demo jobs", () => {
       expect(mapPage, `${job.number}: no weld map page`).toBeDefined();
       for (const id of joints) expect(mapPage, `${job.number} ${id}`).toMatch(word(id));
     }
-  });
+  }, 120_000); // renders a full traveller per released job
 
   it("a marker moved in the database after release breaks the record's verification; put back, it verifies again", async () => {
     const [row] = await withDb(async (c) =>
@@ -220,5 +221,25 @@ describe("a procedure's weld map", () => {
     expect(rec.weldMap.images.map((i: { procedureImageId: string }) => i.procedureImageId)).toEqual([png.id, pdfImage.id]);
     expect(rec.weldMap.joints.map((j: Joint) => j.jointId).sort()).toEqual(weldJoints(rec.steps).sort());
     expect(rec.weldMap.rebasedAt).toBeNull();
+
+    // On the job, the map moves onto a photo of this axle, every joint placed anew by tap.
+    const up = await uploadFixture(welder, rec.job.id);
+    expect(up.status, up.text).toBe(201);
+    const photoId = up.json.photoId as string;
+    const missing = await api(`/api/jobs/${rec.job.id}/weld-map`, { session: welder, method: "PUT", body: { photoId, joints: [{ jointId: "W1", x: 0.2, y: 0.3 }] } });
+    expect(missing.status).toBe(400);
+    expect(missing.json.error.message).toMatch(/W2, W3 are not placed/);
+    const placed = [
+      { jointId: "W1", x: 0.2, y: 0.3 },
+      { jointId: "W2", x: 0.5, y: 0.35, path: [{ x: 0.45, y: 0.35 }, { x: 0.55, y: 0.36 }] },
+      { jointId: "W3", x: 0.8, y: 0.3 },
+    ];
+    const rebased = await api(`/api/jobs/${rec.job.id}/weld-map`, { session: welder, method: "PUT", body: { photoId, joints: placed } });
+    expect(rebased.status, rebased.text).toBe(200);
+    const map = rebased.json.record.weldMap;
+    expect(map.images).toHaveLength(1);
+    expect(map.images[0]).toMatchObject({ photoId, url: expect.stringContaining(photoId) });
+    expect(map.rebasedAt).toEqual(expect.any(String));
+    expect(markers(map)).toEqual(markers({ images: map.images, joints: placed.map((j) => ({ ...j, imageId: map.images[0].id })) }));
   });
 });
