@@ -105,7 +105,7 @@ export function WeldMapEditor({ images, jointIds, initial, onSave, saveLabel = "
       <p className="text-sm text-graphite-700" aria-live="polite">
         {selected ? `Tap the image where ${selected} is${seam ? "; each further tap extends its seam line" : ""}.` : "Choose a joint."} {unplaced.length ? `Not placed yet: ${unplaced.join(", ")}.` : "Every joint is placed."}
       </p>
-      <WeldMapView images={images} joints={joints} highlight={selected} onTap={place} onMarkerDown={onMarkerDown} testId="weld-map-edit" />
+      <WeldMapView images={images} joints={joints} highlight={selected} highlightWord="placing now" onTap={place} onMarkerDown={onMarkerDown} testId="weld-map-edit" />
       <div className="flex items-center gap-3">
         <button type="button" onClick={save} disabled={busy} className="min-h-12 rounded bg-graphite-950 px-5 font-bold text-white" data-testid="weld-map-save">
           {busy ? "Saving…" : saveLabel}

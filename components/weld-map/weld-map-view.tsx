@@ -21,6 +21,7 @@ export function WeldMapView({
   onMarkerDown,
   testId = "weld-map",
   maxHeight,
+  highlightWord = "this step",
 }: {
   images: MapImage[];
   joints: MapMarker[];
@@ -31,6 +32,8 @@ export function WeldMapView({
   testId?: string;
   /** a CSS length the drawn image may not exceed in height (e.g. "45vh"), so a map beside a form leaves room for it */
   maxHeight?: string;
+  /** what the highlighted joint's entry in the list says about it */
+  highlightWord?: string;
 }) {
   return (
     <div className="space-y-3" data-testid={testId}>
@@ -92,7 +95,7 @@ export function WeldMapView({
                 <span aria-hidden="true">{SHAPE_CHAR[state]}</span>
                 <span className="figures font-semibold">{j.jointId}</span>
                 <span>{markerWord(state)}</span>
-                {highlight === j.jointId ? <span className="font-normal">(this step)</span> : null}
+                {highlight === j.jointId ? <span className="font-normal">({highlightWord})</span> : null}
               </li>
             );
           })}
