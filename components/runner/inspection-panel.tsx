@@ -1,4 +1,5 @@
 "use client";
+import { RecordWeldMap } from "@/components/weld-map/record-weld-map";
 // Visual inspection of a weld joint's round, on the inspector's tablet. Every entry is judged as it is
 // typed by the chosen criteria (lib/welding judgeVisual: AWS D1.1:2020 Table 8.1 statically loaded, or
 // ISO 5817:2014 level B, C or D), each beside its limit; the inspector then accepts or rejects with photos
@@ -246,6 +247,7 @@ export function InspectionPanel({ record, step }: { record: JobRecord; step: Ste
         <h3 id="inspect-h" className="text-xl font-bold">Visual inspection of {spec.jointId}, {joint.round > 1 ? `repair round ${joint.round}` : "round 1"}</h3>
         <Pill tone="wait">Waiting for you</Pill>
       </div>
+      <RecordWeldMap record={record} highlight={spec.jointId} testId="inspection-weld-map" title={`Where ${spec.jointId} is`} />
       <VerdictBox tone="info" title="Inspect after the weld has cooled to ambient" testId="cool-note">
         A hot weld hides cracks that open as it cools, and a hot part burns: wait until it is at shop temperature, then inspect and photograph it.
       </VerdictBox>

@@ -6,6 +6,8 @@
 // numbers are typed (lib/welding), so nothing the server would flag or refuse comes as a surprise.
 import { useState } from "react";
 import { HOT_WORK_CAUTIONS } from "@/components/safety-cautions";
+import { RecordWeldMap } from "@/components/weld-map/record-weld-map";
+import { RebaseWeldMap } from "./rebase-weld-map";
 import { JOINT_STATE_LABELS } from "@/lib/jobs/joint";
 import type { InspectionView, JobRecord, JointRound, JointView, PassView, PhotoView, QualificationSummary, SignOffView, StepView, WpsSummary } from "@/lib/jobs/record";
 import { defaultPadUnit, readPadNumber, show, symbolOf } from "@/lib/jobs/units";
@@ -493,6 +495,8 @@ export function WeldControl({ record, step, jobOpen }: { record: JobRecord; step
           <dd><JointStatePill joint={joint} testId="joint-state" /></dd>
         </div>
       </dl>
+      <RecordWeldMap record={record} highlight={spec.jointId} testId="runner-weld-map" title={`Where ${spec.jointId} is`} />
+      {record.weldMap && jobOpen && (viewer.roles.includes("lead") || viewer.roles.includes("welder")) ? <RebaseWeldMap record={record} /> : null}
       <HotWorkNote />
       <WpsPanel wps={wps} spec={spec} tempUnit={tempUnit} speedUnit={speedUnit} />
       {qualification && roundOpen && jobOpen ? <QualificationBox qualification={qualification} /> : null}

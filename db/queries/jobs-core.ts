@@ -28,7 +28,8 @@ import { db } from "@/lib/db";
 import { AppError } from "@/lib/errors";
 import { assembleRecord, type JobParts, type Viewer } from "@/lib/jobs/assemble";
 import type { JobStateName } from "@/lib/jobs/labels";
-import type { InspectionView, JobRecord, MaterialView, NonconformanceView, PassView, PhotoView, QualificationSummary, SignOffView, WpsSummary } from "@/lib/jobs/record";
+import type { JobWeldMap } from "@/lib/weld-map";
+import type { InspectionView, WeldMapView, JobRecord, MaterialView, NonconformanceView, PassView, PhotoView, QualificationSummary, SignOffView, WpsSummary } from "@/lib/jobs/record";
 import { toWpsRanges } from "@/app/api/wps/schema";
 import { currentQualification, type DbOrTx } from "@/db/queries/qualifications";
 import { deriveJobState } from "@/lib/jobs/state";
@@ -81,6 +82,7 @@ export async function loadJobParts(x: Exec, shopId: string, jobId: string, opts:
       releasedByName: releaser.name,
       voidedAt: job.voidedAt,
       voidReason: job.voidReason,
+      weldMap: job.weldMap,
     })
     .from(job)
     .innerJoin(creator, eq(creator.id, job.createdBy))
@@ -314,6 +316,17 @@ export async function loadJobParts(x: Exec, shopId: string, jobId: string, opts:
     materials,
     wps: wpsSummaries,
     qualifications: [],
+    weldMap: weldMapView(h.weldMap),
+  };
+}
+
+/** The job's map with a URL for each image (a photo of this job, or the procedure's image). */
+export function weldMapView(map: JobWeldMap | null): WeldMapView | null {
+  if (!map || !map.joints.length) return null;
+  return {
+    images: map.images.map((i) => ("photoId" in i ? { ...i, url: photoUrls(i.photoId).url } : { ...i, url: `/api/procedure-images/${i.procedureImageId}` })),
+    joints: map.joints,
+    rebasedAt: map.rebasedAt ?? null,
   };
 }
 

@@ -1,6 +1,7 @@
 import "server-only";
 // Job photos: judged by content, re-encoded without metadata, stored under server-made keys, and served
 // only to members of the job's shop. A retried upload (same idempotency key) never makes a second photo.
+import { randomUUID } from "node:crypto";
 import { and, eq } from "drizzle-orm";
 import { job, photo } from "@/db/schema";
 import type { ShopContext } from "@/lib/auth/context";
@@ -8,6 +9,7 @@ import { db } from "@/lib/db";
 import { AppError } from "@/lib/errors";
 import { getObject, photoKeys, putObject } from "@/lib/storage";
 import { processPhoto } from "@/lib/storage/images";
+import type { JobWeldMap } from "@/lib/weld-map";
 import { assertJobOpen, guarded, loadRecord, logActivity } from "./jobs-core";
 import { findStep } from "./jobs-steps";
 
@@ -118,4 +120,39 @@ export async function photoForServing(shopId: string, photoId: string, size: "fu
   const bytes = await getObject(size === "thumb" ? row.thumbKey : row.key);
   if (!bytes) throw new AppError("not_found", "The photo's file is missing from the store.");
   return { bytes, contentType: row.contentType, sha256: row.sha256, name: `${row.jobNumber}-${photoId.slice(0, 8)}${size === "thumb" ? "-thumb" : ""}.jpg` };
+}
+
+/**
+ * Moves the job's weld map onto a photo of this axle (taken on the runner): one image, every weld joint's
+ * marker placed on it by tap. Only while the job is open; the release then seals the map as it stands.
+ */
+export async function rebaseWeldMap(ctx: ShopContext, jobId: string, input: { photoId: string; joints: { jointId: string; x: number; y: number; path?: { x: number; y: number }[] | undefined }[] }) {
+  return guarded(
+    () =>
+      db().transaction(async (tx) => {
+        const record = await loadRecord(tx, ctx, jobId, { lock: true });
+        assertJobOpen(record);
+        const p = record.photos.find((x) => x.id === input.photoId && !x.removed);
+        if (!p) throw new AppError("bad_request", "Choose a photo of this job to put the weld map on.", { photoId: ["Not a photo of this job."] });
+        const jointIds = record.steps.flatMap((s) => (s.spec.kind === "weld" ? [s.spec.jointId] : []));
+        const given = new Set(input.joints.map((j) => j.jointId));
+        const stray = input.joints.find((j) => !jointIds.includes(j.jointId));
+        if (stray) throw new AppError("bad_request", `This job has no weld joint ${stray.jointId}.`, { joints: [`Unknown joint ${stray.jointId}.`] });
+        if (given.size !== input.joints.length) throw new AppError("bad_request", "A joint is placed twice; a joint has one marker.", { joints: ["Duplicate joint."] });
+        const missing = jointIds.filter((id) => !given.has(id));
+        if (missing.length) throw new AppError("bad_request", `Place every weld joint on the photo: ${missing.join(", ")} ${missing.length === 1 ? "is" : "are"} not placed.`, { joints: [`Not placed: ${missing.join(", ")}.`] });
+        const [row] = await tx.select({ sha256: photo.sha256 }).from(photo).where(and(eq(photo.id, p.id), eq(photo.shopId, ctx.shopId)));
+        const imageId = randomUUID();
+        const map: JobWeldMap = {
+          images: [{ id: imageId, photoId: p.id, sha256: row!.sha256, width: p.width, height: p.height }],
+          joints: input.joints.map((j) => ({ jointId: j.jointId, imageId, x: j.x, y: j.y, ...(j.path ? { path: j.path } : {}) })),
+          rebasedAt: new Date().toISOString(),
+          rebasedBy: ctx.userId,
+        };
+        await tx.update(job).set({ weldMap: map, updatedAt: new Date() }).where(and(eq(job.id, jobId), eq(job.shopId, ctx.shopId)));
+        await logActivity(tx, { shopId: ctx.shopId, jobId, actorId: ctx.userId, action: "weldmap.rebased", detail: { photoId: p.id, sha256: row!.sha256, joints: map.joints.length } });
+        return loadRecord(tx, ctx, jobId);
+      }),
+    "The job changed a moment ago; reload and place the joints again.",
+  );
 }

@@ -16,6 +16,7 @@ import type { JobListRow, JobRecord } from "@/lib/jobs/record";
 import type { CreateJobInput, ListJobsQuery, UpdateJobInput } from "@/lib/jobs/schemas";
 import { vinForJob } from "@/lib/jobs/vin";
 import { versionContentSchema } from "@/lib/procedures/schema";
+import { jobMapFromProcedure, sealedWeldMap } from "@/lib/weld-map";
 import { appendSignOff, assertJobOpen, guarded, loadRecord, logActivity, type Exec } from "./jobs-core";
 
 const STATUS_ORDER = sql`case ${job.status} when 'on_hold' then 0 when 'in_progress' then 1 when 'planned' then 2 when 'ready_for_release' then 3 when 'released' then 4 else 5 end`;
@@ -233,6 +234,7 @@ export async function createJob(ctx: ShopContext, input: CreateJobInput) {
         procedureTitle: version.title,
         dueDate: input.dueDate ?? null,
         notes: input.notes,
+        weldMap: jobMapFromProcedure(content.data.weldMap),
         stepsTotal: steps.length,
         createdBy: ctx.userId,
       })
@@ -320,6 +322,7 @@ export async function releaseJob(ctx: ShopContext, jobId: string, pin: string): 
           steps: record.steps.map((s) => ({ key: s.key, signOff: s.signOffs.at(-1)?.contentHash ?? null })),
           nonconformances: record.nonconformances.map((n) => ({ number: n.number, disposition: n.disposition?.disposition ?? null })),
           materials: materialsInUse(record.materials),
+          weldMap: sealedWeldMap(record.weldMap),
         });
         const so = await appendSignOff(tx, {
           shopId: ctx.shopId,

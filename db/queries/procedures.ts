@@ -1,13 +1,14 @@
 import "server-only";
 import { and, asc, count, desc, eq, ilike, ne, or, sql, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
-import { procedure, procedureVersion, shopActivity, user } from "@/db/schema";
+import { procedure, procedureImage, procedureVersion, shopActivity, user } from "@/db/schema";
 import { db } from "@/lib/db";
 import { AppError } from "@/lib/errors";
 import { publishReadiness } from "@/lib/procedures/checks";
 import type { ListQuery } from "@/lib/procedures/forms";
 import { versionHash, type VersionBody } from "@/lib/procedures/hash";
-import { versionContentSchema, type VersionContent } from "@/lib/procedures/schema";
+import { versionContentSchema, weldJointIds, type VersionContent } from "@/lib/procedures/schema";
+import { pruneWeldMap } from "@/lib/weld-map";
 
 export type VersionStatus = "draft" | "published" | "retired";
 export type VersionSummary = { number: number; status: VersionStatus };
@@ -267,6 +268,12 @@ export function contentFields(issues: readonly { path: PropertyKey[]; message: s
   return fields;
 }
 
+// A step removed or its joint renamed takes its marker with it, so an edit never strands the weld map.
+function withoutStrayMarkers(content: VersionContent): VersionContent {
+  if (!content.weldMap) return content;
+  return { ...content, weldMap: pruneWeldMap(content.weldMap, weldJointIds(content)) };
+}
+
 function validContent(content: unknown): VersionContent {
   const parsed = versionContentSchema.safeParse(content);
   if (!parsed.success) throw new AppError("bad_request", parsed.error.issues[0]?.message ?? "The steps are not valid.", contentFields(parsed.error.issues));
@@ -327,7 +334,7 @@ export async function changeDraft(
         title: patch.title ?? current.title,
         scope: patch.scope ?? current.scope,
         code: patch.code ?? current.code,
-        content: patch.content ? validContent(patch.content) : current.content,
+        content: patch.content ? validContent(withoutStrayMarkers(patch.content)) : current.content,
       };
       await tx
         .update(procedureVersion)
@@ -438,6 +445,8 @@ export async function discardDraft(args: { shopId: string; procedureId: string; 
       await tx.delete(procedureVersion).where(and(eq(procedureVersion.id, v.id), eq(procedureVersion.status, "draft")));
       const [left] = await tx.select({ n: count() }).from(procedureVersion).where(eq(procedureVersion.procedureId, args.procedureId));
       const procedureDeleted = (left?.n ?? 0) === 0;
+      // Images of a procedure that never had a sealed version go with it.
+      if (procedureDeleted) await tx.delete(procedureImage).where(and(eq(procedureImage.procedureId, args.procedureId), eq(procedureImage.shopId, args.shopId)));
       if (procedureDeleted) await tx.delete(procedure).where(and(eq(procedure.id, args.procedureId), eq(procedure.shopId, args.shopId)));
       await logActivity(tx, args.shopId, args.actorId, "procedure.draft_discarded", { procedureId: args.procedureId, title: v.title, number: args.number, procedureDeleted });
       return { procedureDeleted };

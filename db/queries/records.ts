@@ -1,7 +1,7 @@
 import "server-only";
 import { randomBytes } from "node:crypto";
 import { and, asc, desc, eq, isNull, sql } from "drizzle-orm";
-import { jobStep, jobToken, photo, recordEntry, signOff, weldInspection, weldPass } from "@/db/schema";
+import { job, jobStep, jobToken, photo, recordEntry, signOff, weldInspection, weldPass } from "@/db/schema";
 import { db } from "@/lib/db";
 import { recordEntryFor, type SignOffForChain } from "@/lib/records/entry";
 import { comparePaperSeal, type PaperCheck } from "@/lib/records/paper-seal";
@@ -103,7 +103,7 @@ export async function verifyJobRecord(jobId: string, runner: Runner = db()): Pro
 }
 
 async function liveRows(runner: Runner, jobId: string): Promise<LiveRows> {
-  const [steps, passes, photos, inspections] = await Promise.all([
+  const [steps, passes, photos, inspections, maps] = await Promise.all([
     runner.select({ id: jobStep.id, title: jobStep.title, value: jobStep.value }).from(jobStep).where(eq(jobStep.jobId, jobId)),
     runner
       .select({
@@ -133,8 +133,9 @@ async function liveRows(runner: Runner, jobId: string): Promise<LiveRows> {
       })
       .from(weldInspection)
       .where(eq(weldInspection.jobId, jobId)),
+    runner.select({ weldMap: job.weldMap }).from(job).where(eq(job.id, jobId)),
   ]);
-  return { steps, passes, photos, inspections };
+  return { steps, passes, photos, inspections, weldMap: maps[0]?.weldMap ?? null };
 }
 
 /** The seal printed on a traveller against this record. */

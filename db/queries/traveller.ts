@@ -12,6 +12,7 @@ import { buildTravellerData } from "@/lib/traveller/build";
 import { getJobRecord } from "./jobs-core";
 import { archiveAddress } from "./shop-settings";
 import { photoForServing } from "./jobs-photos";
+import { procedureImageForServing } from "./procedure-images";
 import { shownIntegrity, tokenForJob, verifyJobRecord } from "./records";
 
 // The QR is scanned by other devices, so it carries the public address, never this computer's loopback one.
@@ -39,8 +40,19 @@ export async function travellerPdf(ctx: ShopContext, jobId: string, paper: "a4" 
     const step = record.steps.find((s) => s.id === p.stepId);
     photos.push({ image: await sharp(bytes).jpeg({ quality: 80 }).toBuffer(), caption: p.caption || step?.title || "", stepKey: step?.key, takenAt: p.uploadedAt, sha256: p.sha256 });
   }
+  const weldMapImages = new Map<string, Buffer>();
+  for (const img of record.weldMap?.images ?? []) {
+    const found = img.photoId
+      ? await photoForServing(ctx.shopId, img.photoId, "full").catch(() => null)
+      : img.procedureImageId
+        ? await procedureImageForServing(ctx.shopId, img.procedureImageId, "full").catch(() => null)
+        : null;
+    // Printed at a size that stays sharp on paper without making the PDF heavy.
+    if (found) weldMapImages.set(img.id, await sharp(found.bytes).resize({ width: 1400, height: 1400, fit: "inside", withoutEnlargement: true }).jpeg({ quality: 82 }).toBuffer());
+  }
   const seal = shownIntegrity(integrity).seal;
   const data = buildTravellerData(record, {
+    weldMapImages,
     shopName: ctx.shop.name,
     versionHash: version?.contentHash ?? "0".repeat(64),
     seal: { sha256: seal ?? "0".repeat(64), entries: integrity.entries },

@@ -19,6 +19,7 @@ import {
   uuid,
 } from "drizzle-orm/pg-core";
 import type { Step, StepKind } from "@/lib/procedures/schema";
+import type { JobWeldMap } from "@/lib/weld-map";
 import type { VisualCriteria, VisualItemResult, VisualObservations, WpsFinding } from "@/lib/welding";
 import { user } from "./auth";
 import { procedure, procedureVersion } from "./procedures";
@@ -70,6 +71,9 @@ export const job = pgTable(
     procedureTitle: text("procedure_title").notNull(),
     dueDate: date("due_date"),
     notes: text("notes").notNull().default(""),
+    // Where each weld joint is (lib/weld-map JobWeldMap): copied from the procedure version when the job is
+    // made, re-based on a photo of this axle while the job is open; null when the version has no map.
+    weldMap: jsonb("weld_map").$type<JobWeldMap>(),
     // Progress kept beside the row so the job list sorts and shows it without reading every step.
     stepsTotal: integer("steps_total").notNull().default(0),
     stepsSigned: integer("steps_signed").notNull().default(0),

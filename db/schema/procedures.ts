@@ -49,3 +49,26 @@ export const procedureVersion = pgTable(
     uniqueIndex("procedure_version_one_draft_idx").on(t.procedureId).where(sql`status = 'draft'`),
   ],
 );
+
+// An image a procedure's weld map marks joints on: an uploaded photo or drawing (re-encoded, metadata-free),
+// the first page of a PDF, or a drawing made in Gusset. Never changed: versions name it by id and SHA-256.
+export const procedureImage = pgTable(
+  "procedure_image",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    shopId: uuid("shop_id").notNull().references(() => shop.id),
+    procedureId: uuid("procedure_id").notNull().references(() => procedure.id),
+    key: text("key").notNull(),
+    thumbKey: text("thumb_key").notNull(),
+    sha256: text("sha256").notNull(),
+    contentType: text("content_type").notNull(),
+    size: integer("size").notNull(),
+    width: integer("width").notNull(),
+    height: integer("height").notNull(),
+    source: text("source", { enum: ["upload", "pdf", "drawing"] }).notNull(),
+    originalType: text("original_type").notNull(),
+    uploadedBy: text("uploaded_by").notNull().references(() => user.id),
+    uploadedAt: timestamp("uploaded_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("procedure_image_procedure_idx").on(t.shopId, t.procedureId)],
+);

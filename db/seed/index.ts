@@ -48,7 +48,7 @@ export async function seed(databaseUrl: string, storage: SeedStorage | null = se
           }
           if ((p.roles as readonly string[]).includes("lead")) leadId ??= u.id;
         }
-        if (s.slug === "iron-gully" && leadId) created.push(...(await seedProcedures(tx, shopRow!.id, leadId)));
+        if (s.slug === "iron-gully" && leadId) created.push(...(await seedProcedures(tx, shopRow!.id, leadId, photos)));
         // The WPS library and qualifications first: the seeded jobs' passes are checked against them.
         created.push(...(await seedWelding(tx, shopRow!.id, s.people)));
         if (s.slug === "iron-gully") created.push(...(await seedJobs(tx, shopRow!.id, s.people, photos)));

@@ -16,6 +16,7 @@ import { meaningOf } from "@/lib/jobs/roles";
 import { deriveJobState } from "@/lib/jobs/state";
 import { vinForJob } from "@/lib/jobs/vin";
 import { versionContentSchema, type Step } from "@/lib/procedures/schema";
+import { jobMapFromProcedure, sealedWeldMap } from "@/lib/weld-map";
 import { recordEntryFor } from "@/lib/records/entry";
 import { chainHash, contentHash, GENESIS_HASH } from "@/lib/seal";
 import { vinCheckDigit } from "@/lib/vin";
@@ -340,7 +341,8 @@ export async function seedJobs(db: SeedDb, shopId: string, people: readonly Pers
       .orderBy(desc(procedureVersion.number))
       .limit(1);
     if (!version) continue;
-    const content = versionContentSchema.parse(version.content);
+    const versionContent = versionContentSchema.parse(version.content);
+    const content = versionContent;
     const steps = content.sections.flatMap((section, si) => section.steps.map((step) => ({ section, si, step })));
     const createdAt = new Date(now - plan.createdDaysAgo * DAY - 3 * 3_600_000);
     const year = createdAt.getUTCFullYear();
@@ -373,6 +375,7 @@ export async function seedJobs(db: SeedDb, shopId: string, people: readonly Pers
         procedureTitle: plan.procedureTitle,
         dueDate: new Date(now + plan.dueInDays * DAY).toISOString().slice(0, 10),
         notes: plan.notes,
+        weldMap: jobMapFromProcedure(content.weldMap),
         stepsTotal: steps.length,
         createdBy: lead.id,
         createdAt,
@@ -531,6 +534,7 @@ export async function seedJobs(db: SeedDb, shopId: string, people: readonly Pers
         steps: steps.map(({ step }) => ({ key: step.key, signOff: signedRows.filter((r) => r.stepId === stepRows.find((x) => x.key === step.key)!.id).at(-1)?.contentHash ?? null })),
         nonconformances: [],
         materials: materialsInUse(materials),
+        weldMap: sealedWeldMap(jobMapFromProcedure(versionContent.weldMap)),
       });
       const hash = contentHash(content);
       const releasedAt = new Date(Math.min(at, now - 30_000));

@@ -69,6 +69,19 @@ export function seedPhotoStore(storage: SeedStorage) {
         originalSize: png.length,
       };
     },
+    /** Renders a drawing (SVG made by lib/weld-map drawingSvg), encodes it as the app stores procedure images, and stores it. */
+    async putProcedureImage(args: { shopId: string; procedureId: string; imageId: string; svg: string }) {
+      const png = await sharp(Buffer.from(args.svg)).png().toBuffer();
+      const main = await sharp(png).jpeg({ quality: 85, mozjpeg: true }).toBuffer({ resolveWithObject: true });
+      const thumb = await sharp(main.data).resize({ width: 360, height: 360, fit: "inside" }).jpeg({ quality: 75 }).toBuffer();
+      const base = `shops/${args.shopId}/procedures/${args.procedureId}/images/${args.imageId}`;
+      const key = `${base}.jpg`;
+      const thumbKey = `${base}-thumb.jpg`;
+      for (const [k, body] of [[key, main.data], [thumbKey, thumb]] as const) {
+        await s3.send(new PutObjectCommand({ Bucket: storage.bucket, Key: k, Body: body, ContentType: "image/jpeg", ContentLength: body.length }));
+      }
+      return { key, thumbKey, sha256: createHash("sha256").update(main.data).digest("hex"), size: main.data.length, width: main.info.width, height: main.info.height };
+    },
   };
 }
 export type SeedPhotoStore = ReturnType<typeof seedPhotoStore>;

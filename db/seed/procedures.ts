@@ -1,16 +1,19 @@
 // Demo procedures for a shop: the starter templates as published version 1, and one procedure with a
 // history (version 1 retired, 2 published, a draft 3) so the version list and the diff have something to show.
 // Idempotent: a procedure whose title the shop already has is left alone.
+import { randomUUID } from "node:crypto";
 import { and, eq } from "drizzle-orm";
 import type { NodePgDatabase } from "drizzle-orm/node-postgres";
 import * as schema from "@/db/schema";
 import { versionHash } from "@/lib/procedures/hash";
-import { versionContentSchema, type VersionContent } from "@/lib/procedures/schema";
+import { versionContentSchema, weldJointIds, type VersionContent } from "@/lib/procedures/schema";
+import { axleBracketDrawing, defaultPlacement, drawingSvg } from "@/lib/weld-map";
+import type { SeedPhotoStore } from "./photos";
 import { starterTemplates } from "@/lib/procedures/templates";
 
 type SeedDb = NodePgDatabase<typeof schema> | Parameters<Parameters<NodePgDatabase<typeof schema>["transaction"]>[0]>[0];
 
-const { procedure, procedureVersion } = schema;
+const { procedure, procedureImage, procedureVersion } = schema;
 const DAY = 86_400_000;
 
 export const HISTORY_TITLE = "Visual inspection of bracket welds";
@@ -147,9 +150,39 @@ type SeedVersion = {
   retiredAt?: Date;
 };
 
-async function insertProcedure(db: SeedDb, shopId: string, leadUserId: string, meta: { title: string; scope: string; code: string }, versions: SeedVersion[]) {
+// A procedure with weld steps gets a drawing of the tube and bracket with every joint marked on it.
+async function withDrawnMap(db: SeedDb, photos: SeedPhotoStore | null, shopId: string, procedureId: string, leadUserId: string, content: VersionContent, at: Date): Promise<VersionContent> {
+  const joints = weldJointIds(content);
+  if (!photos || !joints.length) return content;
+  const imageId = randomUUID();
+  const drawing = axleBracketDrawing();
+  const stored = await photos.putProcedureImage({ shopId, procedureId, imageId, svg: drawingSvg(drawing).svg });
+  await db.insert(procedureImage).values({
+    id: imageId,
+    shopId,
+    procedureId,
+    key: stored.key,
+    thumbKey: stored.thumbKey,
+    sha256: stored.sha256,
+    contentType: "image/jpeg",
+    size: stored.size,
+    width: stored.width,
+    height: stored.height,
+    source: "drawing",
+    originalType: "image/svg+xml",
+    uploadedBy: leadUserId,
+    uploadedAt: at,
+  });
+  return versionContentSchema.parse({
+    ...content,
+    weldMap: { images: [{ id: imageId, sha256: stored.sha256, width: stored.width, height: stored.height, source: "drawing", label: drawing.title }], joints: defaultPlacement(joints, imageId) },
+  });
+}
+
+async function insertProcedure(db: SeedDb, shopId: string, leadUserId: string, meta: { title: string; scope: string; code: string }, versions: SeedVersion[], photos: SeedPhotoStore | null = null) {
   const first = versions[0]!.createdAt;
   const [p] = await db.insert(procedure).values({ shopId, ownerId: leadUserId, createdAt: first, ...meta }).returning({ id: procedure.id });
+  for (const v of versions) v.content = await withDrawnMap(db, photos, shopId, p!.id, leadUserId, v.content, first);
   for (const [i, v] of versions.entries()) {
     const sealed = v.status !== "draft";
     await db.insert(procedureVersion).values({
@@ -171,7 +204,7 @@ async function insertProcedure(db: SeedDb, shopId: string, leadUserId: string, m
   }
 }
 
-export async function seedProcedures(db: SeedDb, shopId: string, leadUserId: string): Promise<string[]> {
+export async function seedProcedures(db: SeedDb, shopId: string, leadUserId: string, photos: SeedPhotoStore | null = null): Promise<string[]> {
   const created: string[] = [];
   const now = Date.now();
   for (const [i, { file }] of starterTemplates().entries()) {
@@ -179,7 +212,7 @@ export async function seedProcedures(db: SeedDb, shopId: string, leadUserId: str
     const at = new Date(now - (90 - i) * DAY);
     await insertProcedure(db, shopId, leadUserId, file.procedure, [
       { status: "published", content: file.content, changeNote: "First issue, from Gusset's starter templates.", createdAt: at, publishedAt: at },
-    ]);
+    ], photos);
     created.push(`procedure ${file.procedure.title}`);
   }
   if (!(await hasProcedure(db, shopId, HISTORY_TITLE))) {

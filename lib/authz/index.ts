@@ -28,6 +28,7 @@ const PERMISSIONS = {
   "step:sign": ["lead", "welder"],
   "weld:log": ["welder"],
   "weld:override": ["lead"],
+  "weldmap:rebase": ["lead", "welder"],
   "material:record": ["lead", "welder", "inspector"],
   "inspection:sign": ["inspector"],
   "nonconformance:raise": ["lead", "welder", "inspector"],

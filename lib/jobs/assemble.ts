@@ -4,7 +4,7 @@ import type { Step } from "@/lib/procedures/schema";
 import type { JobStateName } from "./labels";
 import { stepReadiness, type StepNc } from "./readiness";
 import { inspectionSeparation, jointView } from "./joint";
-import type { InspectionView, JobHeader, JobRecord, JointView, MaterialView, NonconformanceView, PassView, PhotoView, QualificationSummary, SignOffView, StepView, WpsSummary } from "./record";
+import type { InspectionView, JobHeader, JobRecord, JointView, MaterialView, NonconformanceView, PassView, PhotoView, QualificationSummary, SignOffView, StepView, WeldMapView, WpsSummary } from "./record";
 import { meaningOf, signingRole } from "./roles";
 import { holdLocks, holdSeparation, priorWorkFrom, releaseBlockers, unsignedBefore, type ChecklistStep } from "./state";
 
@@ -38,6 +38,7 @@ export type JobParts = {
   materials: MaterialView[];
   wps: WpsSummary[];
   qualifications: QualificationSummary[];
+  weldMap?: WeldMapView | null;
 };
 
 /** Why the steps before a hold point keep it from being signed, in words ("" when none do). */
@@ -147,6 +148,7 @@ export function assembleRecord(parts: JobParts, viewer: Viewer): JobRecord {
   };
   return {
     job: header,
+    weldMap: parts.weldMap ?? null,
     steps,
     photos: parts.photos,
     passes: parts.passes,

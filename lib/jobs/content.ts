@@ -79,8 +79,11 @@ export function releaseContent(r: {
   nonconformances: { number: number; disposition: string | null }[];
   /** the materials in use (lib/jobs/materials materialsInUse) */
   materials: { id: string; kind: string; description: string; specification: string; heatNumber: string; certificate: string }[];
+  /** where each weld joint is (lib/weld-map sealedWeldMap); left out when the job has no map, so older releases hash as they did */
+  weldMap?: Record<string, unknown> | null;
 }): Record<string, unknown> {
-  return recordContent("release", r);
+  const { weldMap, ...rest } = r;
+  return recordContent("release", weldMap ? { ...rest, weldMap } : rest);
 }
 
 /** Content of an inspection's sign-off: the round inspected, what was observed, what the criteria said, the decision. */

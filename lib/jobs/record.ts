@@ -236,8 +236,19 @@ export type JobHeader = {
   voidReason: string | null;
 };
 
+/** An image of the job's weld map: the procedure's (procedureImageId) or a photo of this axle (photoId). */
+export type WeldMapImageView = { id: string; photoId?: string; procedureImageId?: string; width: number; height: number; sha256: string; url: string };
+export type WeldMapView = {
+  images: WeldMapImageView[];
+  joints: { jointId: string; imageId: string; x: number; y: number; path?: { x: number; y: number }[] }[];
+  /** set once the map was moved onto a photo of this axle */
+  rebasedAt: string | null;
+};
+
 export type JobRecord = {
   job: JobHeader;
+  /** where each weld joint is; null when the procedure version has no map */
+  weldMap: WeldMapView | null;
   steps: StepView[];
   photos: PhotoView[];
   passes: PassView[];

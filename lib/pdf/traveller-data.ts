@@ -253,6 +253,31 @@ export const photoSchema = z
   })
   .strict();
 
+const rel = z.number().finite().min(0).max(1);
+
+/** Where each weld joint is: each image once, each joint's marker on it (image-relative 0..1) with its state. */
+export const weldMapSchema = z
+  .object({
+    images: z
+      .array(z.object({ id: required(100, "An image id"), image: imageBytes, width: z.number().int().min(1), height: z.number().int().min(1), label: text(120).default(""), sha256: hex64.optional() }).strict())
+      .max(8),
+    joints: z
+      .array(
+        z
+          .object({
+            jointId: required(40, "A joint id"),
+            imageId: required(100, "An image id"),
+            x: rel,
+            y: rel,
+            path: z.array(z.object({ x: rel, y: rel }).strict()).max(24).optional(),
+            state: z.enum([...JOINT_STATES, "planned"]),
+          })
+          .strict(),
+      )
+      .max(500),
+  })
+  .strict();
+
 export const travellerDataSchema = z
   .object({
     shopName: required(200, "The shop name"),
@@ -304,6 +329,8 @@ export const travellerDataSchema = z
       .strict()
       .default({ entries: [], fillers: [] }),
     photos: z.array(photoSchema).max(200).default([]),
+    /** the job's weld map; null when it has none */
+    weldMap: weldMapSchema.nullable().default(null),
     paper: z.enum(PAPER_SIZES).default("a4"),
     /** IANA zone the times print in, e.g. "Europe/Berlin"; the offset is printed beside each time */
     timeZone: z

@@ -9,6 +9,7 @@ import { formatInstant, formatNumber, printableLines, formatSigned, groupHex, pr
 import { GeometryDiagrams, SteeringWheelChart } from "./geometry-diagram";
 import { Mark, Verdict, type MarkShape, type VerdictKind } from "./marks";
 import { makeQr, type TravellerQr } from "./qr";
+import { markerShapePath, MARKER_LOOK, seamPath, type MarkerState } from "@/lib/weld-map";
 import { COLOR, MARGIN, s } from "./theme";
 import { parseTravellerData, type TravellerData, type TravellerJointState, type TravellerRecord, type TravellerJobState, type TravellerStepKind } from "./traveller-data";
 
@@ -112,7 +113,7 @@ function Footer({ c }: { c: Ctx }) {
 
 // ───────────────────────────── building blocks ─────────────────────────────
 
-function SectionHead({ n, title, first = false }: { n: number; title: string; first?: boolean }) {
+function SectionHead({ n, title, first = false }: { n: number | string; title: string; first?: boolean }) {
   return (
     <View style={[s.sectionHead, first ? { marginTop: 0 } : {}]} wrap={false}>
       <View style={s.accentTick} />
@@ -776,6 +777,104 @@ function WeldSection({ c }: { c: Ctx }) {
   );
 }
 
+// ───────────────────────────── weld map ─────────────────────────────
+
+// The embedded fonts have no ● ◆ ▲ ■: the legend and the table draw each state's marker as the map does.
+function MapMark({ state, size = 9 }: { state: MarkerState; size?: number }) {
+  return (
+    <Svg width={size} height={size} viewBox="0 0 20 20">
+      <Path d={markerShapePath(MARKER_LOOK[state].shape, 10, 10, 6.5)} fill={state === "accepted" ? COLOR.ink : COLOR.white} stroke={COLOR.ink} strokeWidth={2.2} />
+    </Svg>
+  );
+}
+
+const LEGEND: MarkerState[] = ["welding", "awaiting_inspection", "repair", "accepted"];
+
+/** Each image once with every joint on it marked (shape by state) and labelled, then the list of joints. */
+function WeldMapSection({ c }: { c: Ctx }) {
+  const map = c.d.weldMap;
+  if (!map) return null;
+  const maxH = 360;
+  return (
+    <View break>
+      <SectionHead n="4a" title="Weld map" />
+      <View style={{ flexDirection: "row", flexWrap: "wrap", alignItems: "center", marginBottom: 6 }}>
+        <Text style={[s.small, { color: COLOR.body, marginRight: 4 }]}>Where each weld joint is on the part. Marker shape by state:</Text>
+        {LEGEND.map((st) => (
+          <View key={st} style={{ flexDirection: "row", alignItems: "center", marginRight: 8 }}>
+            <MapMark state={st} />
+            <Text style={[s.small, { color: COLOR.body, marginLeft: 2 }]}>{st === "repair" ? "sent back for repair" : MARKER_LOOK[st].word}</Text>
+          </View>
+        ))}
+      </View>
+      {map.images.map((img, n) => {
+        let w = c.contentWidth;
+        let h = (w * img.height) / img.width;
+        if (h > maxH) {
+          w = (w * maxH) / h;
+          h = maxH;
+        }
+        const joints = map.joints.filter((j) => j.imageId === img.id);
+        const r = 6;
+        return (
+          <View key={img.id} wrap={false} style={{ marginBottom: 10 }}>
+            <Text style={[s.label, { marginBottom: 3 }]}>{`Image ${n + 1}${img.label ? ` \u00b7 ${P(img.label)}` : ""}${img.sha256 ? `  #${img.sha256.slice(0, 8)}` : ""}`}</Text>
+            <View style={{ width: w, height: h, position: "relative", borderWidth: 0.5, borderColor: COLOR.ruleStrong }}>
+              <PdfImage src={{ data: img.image, format: img.image[0] === 0x89 ? "png" : "jpg" }} style={{ width: w, height: h }} />
+              <Svg width={w} height={h} viewBox={`0 0 ${w} ${h}`} style={{ position: "absolute", left: 0, top: 0 }}>
+                {joints.map((j) =>
+                  j.path ? <Path key={`p-${j.jointId}`} d={seamPath(j.path, w, h)} stroke={COLOR.ink} strokeWidth={2.5} fill="none" strokeDasharray="5 3" /> : null,
+                )}
+                {joints.map((j) => (
+                  <Path key={`m-${j.jointId}`} d={markerShapePath(MARKER_LOOK[j.state].shape, j.x * w, j.y * h, r)} fill={j.state === "accepted" ? COLOR.ink : COLOR.white} stroke={COLOR.ink} strokeWidth={1.5} />
+                ))}
+              </Svg>
+              {joints.map((j) => (
+                <View key={`l-${j.jointId}`} style={{ position: "absolute", left: Math.min(w - 34, j.x * w + r + 2), top: Math.max(0, j.y * h - r - 12), backgroundColor: COLOR.white, borderWidth: 0.75, borderColor: COLOR.ink, paddingHorizontal: 2 }}>
+                  <Text style={[s.mono, s.bold, { fontSize: 8, color: COLOR.ink }]}>{j.jointId}</Text>
+                </View>
+              ))}
+            </View>
+          </View>
+        );
+      })}
+      <KeptTable
+        head={<Text style={[s.subHead, { marginTop: 4 }]}>Weld joints on the map</Text>}
+        cols={WELD_MAP_COLS}
+        empty="No joints placed."
+        rows={[...map.joints]
+          .sort((a, b) => a.jointId.localeCompare(b.jointId, "en", { numeric: true }))
+          .map((j) => (
+            <View key={j.jointId} style={s.tr} wrap={false}>
+              <Cell flex={1}>
+                <Text style={[s.mono, s.bold]}>{j.jointId}</Text>
+              </Cell>
+              <Cell flex={1}>
+                <Text>{`Image ${map.images.findIndex((i) => i.id === j.imageId) + 1}`}</Text>
+              </Cell>
+              <Cell flex={2}>
+                <Text style={s.mono}>{`${Math.round(j.x * 100)} % across, ${Math.round(j.y * 100)} % down${j.path ? ", seam line" : ""}`}</Text>
+              </Cell>
+              <Cell flex={2}>
+                <View style={{ flexDirection: "row", alignItems: "center" }}>
+                  <MapMark state={j.state} />
+                  <Text style={{ marginLeft: 3 }}>{MARKER_LOOK[j.state].word}</Text>
+                </View>
+              </Cell>
+            </View>
+          ))}
+      />
+    </View>
+  );
+}
+
+const WELD_MAP_COLS: Col[] = [
+  { title: "Joint", flex: 1 },
+  { title: "Image", flex: 1 },
+  { title: "Where", flex: 2 },
+  { title: "State", flex: 2 },
+];
+
 // ───────────────────────────── nonconformances ─────────────────────────────
 
 function NcSection({ c }: { c: Ctx }) {
@@ -1042,6 +1141,7 @@ export function TravellerDocument({ data, conformance }: { data: TravellerRecord
           <Checklist c={c} />
           <GeometrySection c={c} />
           <WeldSection c={c} />
+          <WeldMapSection c={c} />
           <NcSection c={c} />
           <MaterialsSection c={c} />
           <PhotoSheet c={c} end={<EndMark c={c} />} />

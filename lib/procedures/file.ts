@@ -1,14 +1,19 @@
-// The Gusset procedure file ("gusset-procedure", formatVersion 1): what export writes, import reads and
-// templates/ holds. One zod schema defines it; public/schemas/ carries the JSON Schema generated from it.
+// The Gusset procedure file ("gusset-procedure"): what export writes, import reads and templates/ holds.
+// formatVersion 1 is steps only; formatVersion 2 adds the weld map and its images (base64), and is what a
+// version with a map exports as. Zod schemas define both; public/schemas/ carries the JSON Schemas generated
+// from them. Version-1 files are read as they always were.
 import { z } from "zod";
 import { duplicateMembers, formatPath, jsonDepthExceeds, MAX_JSON_DEPTH, type JsonPath } from "./json-scan";
 import { controlCharacterMessage, controlCharacterPaths } from "@/lib/text-safety";
-import { procedureMetaSchema, versionContentSchema, type VersionContent } from "./schema";
+import { procedureMetaSchema, versionContentSchema, versionContentV1Schema, type VersionContent } from "./schema";
 
 export const PROCEDURE_FILE_FORMAT = "gusset-procedure";
-export const PROCEDURE_FILE_VERSION = 1;
+export const PROCEDURE_FILE_VERSION = 2;
+/** A file without images; one carrying weld-map images (formatVersion 2) may be up to PROCEDURE_FILE_MAX_BYTES_WITH_IMAGES. */
 export const PROCEDURE_FILE_MAX_BYTES = 1024 * 1024;
-export const PROCEDURE_FILE_SCHEMA_PATH = "/schemas/gusset-procedure-1.schema.json";
+export const PROCEDURE_FILE_MAX_BYTES_WITH_IMAGES = 16 * 1024 * 1024;
+export const PROCEDURE_FILE_SCHEMA_PATH = "/schemas/gusset-procedure-2.schema.json";
+export const PROCEDURE_FILE_V1_SCHEMA_PATH = "/schemas/gusset-procedure-1.schema.json";
 export const PROCEDURE_FILE_EXTENSION = ".gusset-procedure.json";
 
 // Where an exported file came from. Informational: an import never trusts it, it only compares the hash.
@@ -26,24 +31,55 @@ export const procedureFileSourceSchema = z
   .strict()
   .meta({ description: "Where an exported file came from. Ignored on import, except that its contentHash is compared." });
 
-export const procedureFileSchema = z
+const FILE_DESCRIPTION =
+  "A Gusset procedure: title, scope, the code or standard it follows, and its sections of ordered steps. " +
+  "Step keys and weld joint ids are unique across the file. Importing creates a new draft.";
+
+export const procedureFileV1Schema = z
   .object({
     $schema: z.string().max(500).optional(),
     format: z.literal(PROCEDURE_FILE_FORMAT, { message: `format must be "${PROCEDURE_FILE_FORMAT}".` }),
-    formatVersion: z.literal(PROCEDURE_FILE_VERSION, { message: `formatVersion must be ${PROCEDURE_FILE_VERSION}.` }),
+    formatVersion: z.literal(1, { message: "formatVersion must be 1 or 2." }),
     procedure: procedureMetaSchema,
-    content: versionContentSchema,
+    content: versionContentV1Schema,
     source: procedureFileSourceSchema.optional(),
   })
   .strict()
-  .meta({
-    title: "Gusset procedure file",
-    description:
-      "A Gusset procedure: title, scope, the code or standard it follows, and its sections of ordered steps. " +
-      "Step keys and weld joint ids are unique across the file. Importing creates a new draft.",
-  });
+  .meta({ title: "Gusset procedure file", description: FILE_DESCRIPTION });
 
-export type ProcedureFile = z.output<typeof procedureFileSchema>;
+/** An image of the weld map carried in the file: its bytes as base64, named by the id the map uses. */
+export const procedureFileImageSchema = z
+  .object({
+    id: z.uuid("An image id is a UUID."),
+    contentType: z.enum(["image/jpeg", "image/png"], { message: "contentType is image/jpeg or image/png." }),
+    data: z.string().regex(/^[A-Za-z0-9+/]*={0,2}$/, "data is the image's bytes as base64.").max(PROCEDURE_FILE_MAX_BYTES_WITH_IMAGES),
+  })
+  .strict();
+
+export const procedureFileV2Schema = z
+  .object({
+    $schema: z.string().max(500).optional(),
+    format: z.literal(PROCEDURE_FILE_FORMAT, { message: `format must be "${PROCEDURE_FILE_FORMAT}".` }),
+    formatVersion: z.literal(2, { message: "formatVersion must be 1 or 2." }),
+    procedure: procedureMetaSchema,
+    content: versionContentSchema,
+    /** the weld map's images; every image the map names is here */
+    images: z.array(procedureFileImageSchema).max(8).default([]),
+    source: procedureFileSourceSchema.optional(),
+  })
+  .strict()
+  .superRefine((f, ctx) => {
+    const have = new Set(f.images.map((i) => i.id));
+    f.content.weldMap?.images.forEach((img, i) => {
+      if (!have.has(img.id)) ctx.addIssue({ code: "custom", path: ["content", "weldMap", "images", i, "id"], message: "The weld map names an image the file does not carry (images[])." });
+    });
+  })
+  .meta({ title: "Gusset procedure file (version 2, with the weld map)", description: `${FILE_DESCRIPTION} The weld map's images travel in images[] as base64.` });
+
+/** What import reads: either version, chosen by formatVersion. */
+export const procedureFileSchema = z.union([procedureFileV1Schema, procedureFileV2Schema]);
+
+export type ProcedureFile = z.output<typeof procedureFileV1Schema> | z.output<typeof procedureFileV2Schema>;
 
 export type FileProblem = { path: string; where: string; message: string };
 export type FileParse =
@@ -112,14 +148,15 @@ function utf8Length(text: string): number {
 // Reads a file's text. Every problem found is listed; nothing is kept from a file that has any.
 export function parseProcedureFile(text: string): FileParse {
   const bytes = utf8Length(text);
-  if (bytes > PROCEDURE_FILE_MAX_BYTES) {
-    return {
-      ok: false,
-      status: 413,
-      message: `The file is ${Math.ceil(bytes / 1024)} KB; a procedure file is at most ${PROCEDURE_FILE_MAX_BYTES / 1024} KB.`,
-      problems: [{ path: "", where: "the whole file", message: `Over the ${PROCEDURE_FILE_MAX_BYTES / 1024} KB limit.` }],
-    };
-  }
+  const tooBig = (limit: number): FileParse => ({
+    ok: false,
+    status: 413,
+    message: `The file is ${Math.ceil(bytes / 1024)} KB; a procedure file is at most ${limit / 1024} KB${limit === PROCEDURE_FILE_MAX_BYTES ? " (more only with weld-map images, formatVersion 2)" : ""}.`,
+    problems: [{ path: "", where: "the whole file", message: `Over the ${limit / 1024} KB limit.` }],
+  });
+  if (bytes > PROCEDURE_FILE_MAX_BYTES_WITH_IMAGES) return tooBig(PROCEDURE_FILE_MAX_BYTES_WITH_IMAGES);
+  // Only images may take a file past 1 MB: the steps themselves stay small.
+  if (bytes > PROCEDURE_FILE_MAX_BYTES && !/"formatVersion"\s*:\s*2\b/.test(text) ) return tooBig(PROCEDURE_FILE_MAX_BYTES);
   const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
   if (!body.trim()) {
     return { ok: false, status: 400, message: "The file is empty.", problems: [{ path: "", where: "the whole file", message: "The file is empty." }] };
@@ -149,7 +186,8 @@ export function parseProcedureFile(text: string): FileParse {
   for (const c of controlCharacterPaths(data)) {
     problems.push({ path: formatPath(c.path), where: describeWhere(data, c.path), message: controlCharacterMessage(c.code) });
   }
-  const parsed = procedureFileSchema.safeParse(data);
+  const version = (data as { formatVersion?: unknown } | null)?.formatVersion;
+  const parsed = (version === 2 ? procedureFileV2Schema : procedureFileV1Schema).safeParse(data);
   if (!parsed.success) {
     for (const issue of parsed.error.issues) {
       problems.push({ path: formatPath(issue.path), where: describeWhere(data, issue.path as JsonPath), message: issue.message });
@@ -176,19 +214,27 @@ export function problemFields(problems: readonly FileProblem[]): Record<string, 
   return fields;
 }
 
+/**
+ * The file of a version. With a weld map it is formatVersion 2 and carries the map's images (base64); without
+ * one it stays formatVersion 1, so files of versions without a map read anywhere version-1 files do.
+ */
 export function toProcedureFile(
   v: { title: string; scope: string; code: string; content: VersionContent },
   source?: z.input<typeof procedureFileSourceSchema>,
-  schemaUrl: string = PROCEDURE_FILE_SCHEMA_PATH,
-): z.input<typeof procedureFileSchema> {
-  return {
-    $schema: schemaUrl,
+  schemaUrl?: string,
+  images: z.input<typeof procedureFileImageSchema>[] = [],
+): z.input<typeof procedureFileV1Schema> | z.input<typeof procedureFileV2Schema> {
+  const withMap = Boolean(v.content.weldMap);
+  const base = {
     format: PROCEDURE_FILE_FORMAT,
-    formatVersion: PROCEDURE_FILE_VERSION,
     procedure: { title: v.title, scope: v.scope, code: v.code },
-    content: v.content,
     ...(source ? { source } : {}),
-  };
+  } as const;
+  if (!withMap) {
+    const { weldMap: _omit, ...content } = v.content;
+    return { $schema: schemaUrl ?? PROCEDURE_FILE_V1_SCHEMA_PATH, ...base, formatVersion: 1, content };
+  }
+  return { $schema: schemaUrl ?? PROCEDURE_FILE_SCHEMA_PATH, ...base, formatVersion: 2, content: v.content, images };
 }
 
 export function fileNameFor(title: string, number: number): string {

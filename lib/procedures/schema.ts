@@ -1,6 +1,7 @@
 // Gusset's procedure content: sections of ordered steps, each of one kind. This one schema defines the
 // stored version content, the procedure file (import/export) and the starter templates.
 import { z } from "zod";
+import { procedureWeldMapSchema, type ProcedureWeldMap } from "@/lib/weld-map";
 
 export const STEP_KINDS = ["check", "measure", "photo", "caution", "weld", "hold", "torque", "coating", "geometry"] as const;
 export type StepKind = (typeof STEP_KINDS)[number];
@@ -154,27 +155,44 @@ export const sectionSchema = z
   .strict();
 
 // Keys are unique across the whole version; weld joint ids too.
-export const versionContentSchema = z
-  .object({ sections: z.array(sectionSchema).max(50, "At most 50 sections.") })
-  .strict()
-  .superRefine((content, ctx) => {
-    const sectionKeys = new Map<string, number>();
-    const stepKeys = new Map<string, string>();
-    const joints = new Map<string, string>();
-    content.sections.forEach((section, si) => {
-      if (sectionKeys.has(section.key)) ctx.addIssue({ code: "custom", path: ["sections", si, "key"], message: `Duplicate section key "${section.key}".` });
-      sectionKeys.set(section.key, si);
-      section.steps.forEach((step, ti) => {
-        if (stepKeys.has(step.key)) ctx.addIssue({ code: "custom", path: ["sections", si, "steps", ti, "key"], message: `Duplicate step key "${step.key}" (also in ${stepKeys.get(step.key)}).` });
-        stepKeys.set(step.key, section.key);
-        if (step.kind === "weld") {
-          if (joints.has(step.jointId)) ctx.addIssue({ code: "custom", path: ["sections", si, "steps", ti, "jointId"], message: `Duplicate weld joint "${step.jointId}".` });
-          joints.set(step.jointId, step.key);
-        }
-      });
+function contentRules(content: { sections: z.output<typeof sectionSchema>[]; weldMap?: ProcedureWeldMap | undefined }, ctx: z.RefinementCtx) {
+  const sectionKeys = new Map<string, number>();
+  const stepKeys = new Map<string, string>();
+  const joints = new Map<string, string>();
+  content.sections.forEach((section, si) => {
+    if (sectionKeys.has(section.key)) ctx.addIssue({ code: "custom", path: ["sections", si, "key"], message: `Duplicate section key "${section.key}".` });
+    sectionKeys.set(section.key, si);
+    section.steps.forEach((step, ti) => {
+      if (stepKeys.has(step.key)) ctx.addIssue({ code: "custom", path: ["sections", si, "steps", ti, "key"], message: `Duplicate step key "${step.key}" (also in ${stepKeys.get(step.key)}).` });
+      stepKeys.set(step.key, section.key);
+      if (step.kind === "weld") {
+        if (joints.has(step.jointId)) ctx.addIssue({ code: "custom", path: ["sections", si, "steps", ti, "jointId"], message: `Duplicate weld joint "${step.jointId}".` });
+        joints.set(step.jointId, step.key);
+      }
     });
   });
+  // A marker names a joint of this version's weld steps.
+  content.weldMap?.joints.forEach((j, i) => {
+    if (!joints.has(j.jointId)) ctx.addIssue({ code: "custom", path: ["weldMap", "joints", i, "jointId"], message: `The weld map places ${j.jointId}, but no weld step has that joint.` });
+  });
+}
+
+const sectionsShape = { sections: z.array(sectionSchema).max(50, "At most 50 sections.") };
+
+/** The content a version-1 procedure file carries: sections of steps, no weld map. */
+export const versionContentV1Schema = z.object(sectionsShape).strict().superRefine(contentRules);
+
+/** A version's content: its steps and, when the lead has placed them, where the weld joints are (sealed with it). */
+export const versionContentSchema = z
+  .object({ ...sectionsShape, weldMap: procedureWeldMapSchema.optional() })
+  .strict()
+  .superRefine(contentRules);
 export type VersionContent = z.output<typeof versionContentSchema>;
+
+/** The weld joint ids of a version, in step order. */
+export function weldJointIds(content: { sections: readonly { steps: readonly Step[] }[] }): string[] {
+  return content.sections.flatMap((s) => s.steps.flatMap((t) => (t.kind === "weld" ? [t.jointId] : [])));
+}
 
 export const procedureMetaSchema = z
   .object({

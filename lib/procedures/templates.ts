@@ -6,7 +6,7 @@ import fitWeld from "@/templates/03-fit-weld-lateral-link-bracket.gusset-procedu
 import coatRepair from "@/templates/04-coat-repaired-area.gusset-procedure.json";
 import reassemble from "@/templates/05-reassemble-torque-road-test.gusset-procedure.json";
 import startToFinish from "@/templates/06-lateral-link-bracket-start-to-finish.gusset-procedure.json";
-import { procedureFileSchema, type ProcedureFile } from "./file";
+import { procedureFileV1Schema, type ProcedureFile } from "./file";
 
 export const COMBINED_TITLE = "Lateral-link bracket replacement, start to finish";
 export const COMBINED_CODE =
@@ -47,7 +47,7 @@ export function isTemplateSlug(value: unknown): value is TemplateSlug {
 
 // Parsed with the file schema, so defaults are applied exactly as an import would apply them.
 export function starterTemplate(slug: TemplateSlug): ProcedureFile {
-  return procedureFileSchema.parse(TEMPLATE_FILES[slug]);
+  return procedureFileV1Schema.parse(TEMPLATE_FILES[slug]);
 }
 
 export function starterTemplates(): { slug: TemplateSlug; file: ProcedureFile }[] {

@@ -2,7 +2,8 @@
 // sign-offs. A database rewrite that leaves the sign-offs and the chain alone but edits these rows would
 // otherwise show false values beside "intact"; this names the first such difference. Pure.
 import { canonicalJson } from "@/lib/seal/canonical-json";
-import { STEP_CONTENT_SCHEMA } from "@/lib/jobs/content";
+import { recordContent, STEP_CONTENT_SCHEMA } from "@/lib/jobs/content";
+import { sealedWeldMap, type JobWeldMap } from "@/lib/weld-map";
 
 export type SealedSignOff = { id: string; stepId: string | null; content: Record<string, unknown> };
 
@@ -23,7 +24,11 @@ export type LiveRows = {
   }[];
   photos: { id: string; sha256: string }[];
   inspections: { signOffId: string; criteria: string; observations: unknown; judged: string; decision: string; notes: string }[];
+  /** the job's weld map as stored (job.weld_map); the release seals it */
+  weldMap?: JobWeldMap | null;
 };
+
+const RELEASE_CONTENT_SCHEMA = recordContent("release", {}).schema;
 
 export type RowDifference = { signOffId: string; reason: string };
 
@@ -70,6 +75,10 @@ export function firstRowDifference(signOffs: readonly SealedSignOff[], rows: Liv
     for (const p of asArray(c.photos)) {
       const stored = photos.get(String(p.id));
       if (stored !== p.sha256) return { signOffId: so.id, reason: `a photo signed with ${where} is ${stored === undefined ? "missing" : "stored with different bytes"}` };
+    }
+    // A release seals where each joint is; a marker moved or an image swapped afterwards shows here.
+    if (c.schema === RELEASE_CONTENT_SCHEMA && rows.weldMap !== undefined && !same(sealedWeldMap(rows.weldMap), c.weldMap ?? null)) {
+      return { signOffId: so.id, reason: "the stored weld map differs from the one sealed at release" };
     }
     const inspection = inspections.get(so.id);
     if (inspection) {

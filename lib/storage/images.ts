@@ -1,7 +1,11 @@
 import "server-only";
 // Photos are judged by their bytes, never by name or declared type, then re-encoded: the stored JPEG has no
 // metadata at all (no location, no camera serial), is turned upright, and gets a thumbnail beside it.
+import { execFile, type ExecFileException } from "node:child_process";
 import { createHash } from "node:crypto";
+import { mkdtemp, readFile, rm, stat, writeFile } from "node:fs/promises";
+import { tmpdir } from "node:os";
+import path from "node:path";
 import { fileTypeFromBuffer } from "file-type";
 import sharp, { type OutputInfo } from "sharp";
 import { AppError } from "@/lib/errors";
@@ -87,4 +91,63 @@ function describe(mime: string): string {
   if (mime.startsWith("video/")) return "a video";
   if (mime === "application/zip" || mime.includes("compressed")) return "an archive";
   return `of type ${mime}`;
+}
+
+/**
+ * A weld-map image: a photo or drawing judged and re-encoded like a job photo. SVG is refused (it can carry
+ * script and outside references); a PDF's first page is rendered to PNG by poppler's pdftoppm (see README).
+ */
+export async function processMapImage(bytes: Buffer): Promise<ProcessedPhoto> {
+  const head = bytes.subarray(0, 512).toString("utf8").replace(/^\uFEFF/, "").trimStart().toLowerCase();
+  if (head.startsWith("<") && (head.includes("<svg") || head.startsWith("<?xml"))) {
+    throw new AppError("unsupported_media_type", "SVG drawings are not taken (they can carry scripts). Save the drawing as PNG or JPEG, or draw it in Gusset.");
+  }
+  if ((await sniffImageType(bytes)) === "application/pdf") {
+    const processed = await processPhoto(await pdfFirstPage(bytes));
+    return { ...processed, originalType: "application/pdf" };
+  }
+  return processPhoto(bytes);
+}
+
+// Rendering a PDF page runs a parser over untrusted bytes: in a child process, killed after PDF_TIMEOUT_MS,
+// with the page scaled so its longer side is PDF_PAGE_SIDE pixels whatever size the page claims.
+const PDF_TIMEOUT_MS = 20_000;
+const PDF_PAGE_SIDE = 2000;
+const PDF_MAX_OUTPUT = 40 * 1024 * 1024;
+
+/** Page 1 of a PDF as PNG bytes, or a 415/422 that says why not. */
+export async function pdfFirstPage(bytes: Buffer): Promise<Buffer> {
+  const dir = await mkdtemp(path.join(tmpdir(), "gusset-pdf-"));
+  try {
+    const input = path.join(dir, "in.pdf");
+    await writeFile(input, bytes);
+    const failure = await new Promise<ExecFileException | null>((resolve) => {
+      execFile(
+        "pdftoppm",
+        ["-q", "-f", "1", "-l", "1", "-singlefile", "-png", "-scale-to", String(PDF_PAGE_SIDE), input, path.join(dir, "page")],
+        { timeout: PDF_TIMEOUT_MS, killSignal: "SIGKILL", maxBuffer: 64 * 1024, windowsHide: true },
+        (error) => resolve(error),
+      );
+    });
+    if (failure?.code === "ENOENT") {
+      throw new AppError("unsupported_media_type", "PDF drawings cannot be read on this computer (poppler's pdftoppm is not installed). Save the drawing's first page as PNG or JPEG and upload that.");
+    }
+    if (failure?.killed) {
+      throw new AppError("unprocessable", "This PDF took too long to draw. Save its first page as PNG or JPEG and upload that.");
+    }
+    const out = path.join(dir, "page.png");
+    const size = await stat(out).then((s) => s.size).catch(() => 0);
+    if (failure || size === 0) throw new AppError("unprocessable", "The first page of this PDF could not be read (it may be damaged or password-protected). Save it as PNG or JPEG and upload that.");
+    if (size > PDF_MAX_OUTPUT) throw new AppError("payload_too_large", "The first page of this PDF makes too large an image. Save it as PNG or JPEG and upload that.");
+    return await readFile(out);
+  } finally {
+    await rm(dir, { recursive: true, force: true });
+  }
+}
+
+/** A drawing made in Gusset: SVG text built by lib/weld-map drawingSvg from checked shapes, rendered and re-encoded. */
+export async function renderDrawing(svg: string): Promise<ProcessedPhoto> {
+  const png = await sharp(Buffer.from(svg), { limitInputPixels: MAX_PIXELS }).png().toBuffer();
+  const processed = await processPhoto(png);
+  return { ...processed, originalType: "image/svg+xml" };
 }

@@ -57,3 +57,9 @@ export function photoKeys(shopId: string, jobId: string, idempotencyKey: string)
   const base = `shops/${shopId}/jobs/${jobId}/photos/${name}`;
   return { key: `${base}.jpg`, thumbKey: `${base}-thumb.jpg` };
 }
+
+/** Keys of a procedure's weld-map image and its thumbnail (one image id, one pair of objects). */
+export function procedureImageKeys(shopId: string, procedureId: string, imageId: string): { key: string; thumbKey: string } {
+  const base = `shops/${shopId}/procedures/${procedureId}/images/${imageId}`;
+  return { key: `${base}.jpg`, thumbKey: `${base}-thumb.jpg` };
+}

@@ -18,6 +18,8 @@ type Extras = {
   paper: "a4" | "letter";
   unitSystem: UnitSystem;
   photos: TravellerData["photos"];
+  /** the bytes (JPEG) of each weld-map image, by the map's image id */
+  weldMapImages?: ReadonlyMap<string, Buffer>;
   /**
    * heat-input limits of the published WPS each weld step names (missing when none is published); only for
    * passes recorded without WPS findings and whose revision the record does not carry
@@ -301,7 +303,21 @@ export function buildTravellerData(record: JobRecord, x: Extras): TravellerData 
     })),
     materials: materialsOf(record),
     photos: x.photos,
+    weldMap: weldMapOf(record, x.weldMapImages),
     paper: x.paper,
     timeZone: x.timeZone ?? "UTC",
+  };
+}
+
+/** The job's map for print: images whose bytes were found, and every joint's marker with where the joint stands. */
+function weldMapOf(record: JobRecord, images: ReadonlyMap<string, Buffer> | undefined): NonNullable<TravellerData["weldMap"]> | null {
+  const map = record.weldMap;
+  if (!map || !images) return null;
+  const shown = map.images.filter((i) => images.has(i.id));
+  if (!shown.length) return null;
+  const stateOf = new Map(record.steps.flatMap((s) => (s.spec.kind === "weld" ? [[s.spec.jointId, s.joint?.state ?? "welding"] as const] : [])));
+  return {
+    images: shown.map((i) => ({ id: i.id, image: images.get(i.id)!, width: i.width, height: i.height, sha256: i.sha256, label: i.photoId ? "Photo of this axle" : "" })),
+    joints: map.joints.filter((j) => shown.some((i) => i.id === j.imageId)).map((j) => ({ ...j, state: stateOf.get(j.jointId) ?? "planned" })),
   };
 }

@@ -19,6 +19,7 @@ const EXPECTED: Record<Action, string[]> = {
   "step:sign": ["lead", "welder"],
   "weld:log": ["welder"],
   "weld:override": ["lead"],
+  "weldmap:rebase": ["lead", "welder"],
   "material:record": ["lead", "welder", "inspector"],
   "inspection:sign": ["inspector"],
   "nonconformance:raise": ["lead", "welder", "inspector"],

@@ -62,7 +62,7 @@ const malformed: { name: string; text: string; status: number; path: string; mes
   { name: "empty", text: "   ", status: 400, path: "", message: /empty/ },
   { name: "a JSON array instead of an object", text: "[1,2,3]", status: 422, path: "", message: /expected object/i },
   { name: "another program's format", text: withChange((f) => (f.format = "some-other-format")), status: 422, path: "format", message: /format must be "gusset-procedure"/ },
-  { name: "a future formatVersion", text: withChange((f) => (f.formatVersion = 2)), status: 422, path: "formatVersion", message: /formatVersion must be 1/ },
+  { name: "a future formatVersion", text: withChange((f) => (f.formatVersion = 3)), status: 422, path: "formatVersion", message: /formatVersion must be 1 or 2/ },
   { name: "an unknown step kind", text: withChange((f) => (step(f, 1, 1).kind = "laser")), status: 422, path: "content.sections[1].steps[1].kind", message: /Unknown step kind/ },
   { name: "a wrong type (size as text)", text: withChange((f) => (step(f, 1, 0).sizeMm = "5")), status: 422, path: "content.sections[1].steps[0].sizeMm", message: /The weld size must be a number/ },
   { name: "a missing required field (no WPS)", text: withChange((f) => delete step(f, 1, 0).wpsRef), status: 422, path: "content.sections[1].steps[0].wpsRef", message: /Name the WPS/ },

@@ -3,6 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { z } from "zod";
 import { JOINT_STATE_TONES, JobWelds } from "@/components/job-welds";
+import { RecordWeldMap } from "@/components/weld-map/record-weld-map";
 import { PageHeader } from "@/components/page-header";
 import { SafetyNote } from "@/components/safety-note";
 import { SignOffList } from "@/components/runner/sign-off-list";
@@ -144,6 +145,7 @@ export default async function JobPage({ params, searchParams }: { params: Promis
       </nav>
       <div className="mt-4">
         {tab === "checklist" ? <ChecklistTab record={record} system={system} /> : null}
+        {tab === "welds" ? <RecordWeldMap record={record} testId="job-weld-map" /> : null}
         {tab === "welds" ? <JobWelds record={record} system={system} /> : null}
         {tab === "materials" ? <MaterialsPanel jobId={j.id} materials={record.materials} canRecord={open && can(ctx.roles, "material:record")} /> : null}
         {tab === "measurements" ? <MeasurementsTab record={record} system={system} /> : null}

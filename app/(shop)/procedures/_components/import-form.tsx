@@ -2,7 +2,7 @@
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { FormMessage } from "@/components/form-message";
-import { PROCEDURE_FILE_MAX_BYTES } from "@/lib/procedures/file";
+import { PROCEDURE_FILE_MAX_BYTES_WITH_IMAGES } from "@/lib/procedures/file";
 
 type Problem = { path: string; where: string; message: string };
 
@@ -24,8 +24,8 @@ export function ImportForm() {
       return;
     }
     setFileError(undefined);
-    if (file.size > PROCEDURE_FILE_MAX_BYTES) {
-      setMessage(`The file is ${Math.ceil(file.size / 1024)} KB; a procedure file is at most ${PROCEDURE_FILE_MAX_BYTES / 1024} KB. Nothing was saved.`);
+    if (file.size > PROCEDURE_FILE_MAX_BYTES_WITH_IMAGES) {
+      setMessage(`The file is ${Math.ceil(file.size / 1024)} KB; a procedure file is at most ${PROCEDURE_FILE_MAX_BYTES_WITH_IMAGES / 1024} KB. Nothing was saved.`);
       return;
     }
     setPending(true);

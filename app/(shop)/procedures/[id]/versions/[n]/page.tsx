@@ -13,6 +13,8 @@ import { idOrNotFound, numberOrNotFound, orNotFound } from "../../../_components
 import { ProcedureNote } from "../../../_components/procedure-note";
 import { VersionStatusBadge } from "../../../_components/status";
 import { VersionContentView } from "../../../_components/version-content";
+import { WeldMapView } from "@/components/weld-map/weld-map-view";
+import { weldJointIds } from "@/lib/procedures/schema";
 
 export const metadata: Metadata = { title: "Procedure version" };
 
@@ -60,6 +62,26 @@ export default async function VersionPage({
             </section>
           ) : null}
           <VersionContentView content={v.content} system={ctx.unitSystem} />
+          {weldJointIds(v.content).length ? (
+            <section className="card p-4" aria-labelledby="map-h" data-testid="version-weld-map">
+              <div className="flex flex-wrap items-center justify-between gap-2">
+                <h2 id="map-h" className="font-bold">Weld map</h2>
+                {writer && v.status === "draft" ? (
+                  <Link href={`/procedures/${id}/versions/${number}/weld-map`} className="inline-flex min-h-12 items-center rounded border-2 border-graphite-950 px-3 font-semibold" data-testid="edit-weld-map">
+                    Place joints on the map
+                  </Link>
+                ) : null}
+              </div>
+              {v.content.weldMap ? (
+                <WeldMapView
+                  images={v.content.weldMap.images.map((i) => ({ id: i.id, url: `/api/procedure-images/${i.id}`, width: i.width, height: i.height, label: i.label }))}
+                  joints={v.content.weldMap.joints}
+                />
+              ) : (
+                <p className="mt-2 text-sm">No joint is placed on a picture of the part yet.</p>
+              )}
+            </section>
+          ) : null}
         </div>
         <aside className="space-y-4">
           <section className="card space-y-2 p-4 text-sm" aria-labelledby="ver-h" data-testid="version-facts">
