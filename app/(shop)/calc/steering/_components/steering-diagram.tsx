@@ -134,7 +134,7 @@ export function SteeringDiagram({
   const width0 = b.maxY - b.minY;
   const pad = Math.max(60, width0 * 0.07);
   // Room on the right for the hole labels, which are written beside the bracket.
-  const padRight = pad + (holes.length ? Math.max(120, width0 * 0.16) : 0);
+  const padRight = pad + (holes.length ? Math.max(160, width0 * 0.24) : 0);
   let minZ = b.minZ - pad;
   let maxZ = b.maxZ + pad + 40;
   const width = width0 + pad + padRight;
@@ -146,7 +146,9 @@ export function SteeringDiagram({
     maxZ += grow;
   }
   const height = maxZ - minZ;
-  const k = width / 820; // mm per CSS pixel at an 820 px wide drawing: sizes text and marks
+  // mm per CSS pixel at a 560 px wide drawing (about what it gets beside the ranking, tablet to desktop): sizes
+  // text and marks so the labels stay readable there.
+  const k = width / 560;
   const font = 14 * k;
 
   const at = pose.carry;
