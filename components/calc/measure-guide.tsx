@@ -1,8 +1,9 @@
 // The measuring guide: one drawing per joint of the steering links, front view of a solid-axle truck seen from
 // ahead, with the joint to measure ringed and the two tapes drawn: up from the floor to the joint's centre,
 // and across from the vehicle's centre line. Shapes and words carry the meaning, not colour.
+import { useState } from "react";
 import { Segmented } from "./fields";
-import { POINT_LABELS, type FloorText, type PointKey } from "./steering-request";
+import { POINT_LABELS, withEntry, type FloorText, type PointKey, type SteeringFormState } from "./steering-request";
 
 export const GUIDE_ORDER: readonly PointKey[] = ["frameEnd", "axleEnd", "pitmanEnd", "knuckleEnd", "axleCenter"];
 
@@ -115,28 +116,13 @@ export type LengthFieldRenderer = (key: string, label: string, value: string, se
  * the floor, its distance from the centre line and its side; the list of joints measured so far. The calculator
  * and a job's geometry step on the runner both use it, so a joint is measured the same way in both.
  */
-export function MeasureGuide({
-  floor,
-  step,
-  onStep,
-  onPoint,
-  lengthField,
-  axleWidth,
-  onAxleWidth,
-}: {
-  floor: Record<PointKey, FloorText>;
-  step: number;
-  onStep: (i: number) => void;
-  onPoint: (key: PointKey, patch: Partial<FloorText>) => void;
-  lengthField: LengthFieldRenderer;
-  axleWidth: string;
-  onAxleWidth: (v: string) => void;
-}) {
+export function MeasureGuide({ floor, onState, state, lengthField }: { floor: Record<PointKey, FloorText>; state: SteeringFormState; onState: (next: SteeringFormState) => void; lengthField: LengthFieldRenderer }) {
+  const [step, onStep] = useState(0);
   const i = Math.max(0, Math.min(step, GUIDE_ORDER.length - 1));
   const key = GUIDE_ORDER[i]!;
   const f = floor[key];
   const text = GUIDE_TEXT[key];
-  const setF = (patch: Partial<FloorText>) => onPoint(key, patch);
+  const setF = (patch: Partial<FloorText>) => onState({ ...state, floor: { ...floor, [key]: { ...f, ...patch } } });
   return (
     <fieldset className="card space-y-3 p-4" data-testid="measure-guide">
       <legend className="px-1 text-lg font-bold">Measuring guide</legend>
@@ -183,8 +169,39 @@ export function MeasureGuide({
             );
           })}
         </ol>
-        {lengthField("axleWidth", "Axle width (optional)", axleWidth, onAxleWidth, { signed: false, hint: "wheel-mount face to face, for the length check" })}
+        {lengthField("axleWidth", "Axle width (optional)", state.axleWidth ?? "", (v) => onState({ ...state, axleWidth: v }), { signed: false, hint: "wheel-mount face to face, for the length check" })}
       </div>
     </fieldset>
+  );
+}
+
+/** How the joints are entered (the guide or coordinates) and, for the guide, which side the driver sits. */
+export function EntryChoice({ state, onState }: { state: SteeringFormState; onState: (next: SteeringFormState) => void }) {
+  const floorMode = state.entry === "floor" && state.floor !== undefined;
+  return (
+    <>
+      <Segmented
+        legend="Enter the joints as"
+        testId="steer-entry"
+        value={floorMode ? "floor" : "coordinates"}
+        onChange={(entry) => onState(withEntry(state, entry))}
+        options={[
+          { value: "floor", label: "Floor and centre line" },
+          { value: "coordinates", label: "Coordinates" },
+        ]}
+      />
+      {floorMode ? (
+        <Segmented
+          legend="The vehicle is"
+          testId="steer-drive"
+          value={state.drive ?? "lhd"}
+          onChange={(drive) => onState({ ...state, drive })}
+          options={[
+            { value: "lhd", label: "Left-hand drive" },
+            { value: "rhd", label: "Right-hand drive" },
+          ]}
+        />
+      ) : null}
+    </>
   );
 }

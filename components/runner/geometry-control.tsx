@@ -5,7 +5,7 @@
 // as they are typed (lib/geometry) and recomputed by the server from that input when saving.
 import { useEffect, useState } from "react";
 import { FixList, Segmented, TextField } from "@/components/calc/fields";
-import { MeasureGuide, type LengthFieldRenderer } from "@/components/calc/measure-guide";
+import { EntryChoice, MeasureGuide, type LengthFieldRenderer } from "@/components/calc/measure-guide";
 import {
   captureMeta,
   convertSteeringForm,
@@ -18,7 +18,6 @@ import {
   sideSign,
   steeringFieldLabel,
   toSteeringRequest,
-  withEntry,
   type PointKey,
   type SteeringFormState,
 } from "@/components/calc/steering-request";
@@ -78,7 +77,6 @@ function CaptureForm({ stepId, which, capture, readOnly, unitSystem, onCapture, 
   const storeKey = `gusset:geometry:${stepId}:${which}`;
   const [state, setState] = useState<SteeringFormState>(() => stateFrom(capture, unitSystem));
   const [touched, setTouched] = useState<ReadonlySet<string>>(() => new Set());
-  const [guideStep, setGuideStep] = useState(0);
   // Half-typed points survive a reload on this tablet; only a complete capture goes to the server.
   useEffect(() => {
     if (capture || readOnly) return;
@@ -137,20 +135,11 @@ function CaptureForm({ stepId, which, capture, readOnly, unitSystem, onCapture, 
     <div className={`grid gap-4 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)] ${LARGE}`} data-testid="geometry-capture">
       <div className="min-w-0 space-y-3">
         <div className="card flex flex-wrap items-end gap-3 p-4">
-          <Segmented legend="Enter the joints as" testId="steer-entry" value={floorMode ? "floor" : "coordinates"} onChange={(e) => update(withEntry(state, e))} options={[{ value: "floor", label: "Floor and centre line" }, { value: "coordinates", label: "Coordinates" }]} />
-          {floorMode ? <Segmented legend="The vehicle is" testId="steer-drive" value={state.drive ?? "lhd"} onChange={(drive) => set({ drive })} options={[{ value: "lhd", label: "Left-hand drive" }, { value: "rhd", label: "Right-hand drive" }]} /> : null}
+          <EntryChoice state={state} onState={update} />
           <Segmented legend="Units" testId="steer-units" value={state.units} onChange={(u) => update(convertSteeringForm(state, u))} options={[{ value: "metric", label: "mm" }, { value: "imperial", label: "in" }]} />
         </div>
         {floorMode && state.floor ? (
-          <MeasureGuide
-            floor={state.floor}
-            step={guideStep}
-            onStep={setGuideStep}
-            onPoint={(key, patch) => set({ floor: { ...state.floor!, [key]: { ...state.floor![key], ...patch } } })}
-            lengthField={lengthField}
-            axleWidth={state.axleWidth ?? ""}
-            onAxleWidth={(v) => set({ axleWidth: v })}
-          />
+          <MeasureGuide floor={state.floor} state={state} onState={update} lengthField={lengthField} />
         ) : (
           <fieldset className="card space-y-2 p-4">
             <legend className="px-1 text-lg font-bold">Joints, front view at ride height</legend>

@@ -2,7 +2,7 @@
 import { useDeferredValue, useMemo, useState } from "react";
 import { Checkbox, FixList, Segmented, TextField } from "@/components/calc/fields";
 import { Figure } from "@/components/calc/figure";
-import { MeasureGuide } from "@/components/calc/measure-guide";
+import { EntryChoice, MeasureGuide } from "@/components/calc/measure-guide";
 import {
   convertSteeringForm,
   plausibility,
@@ -104,7 +104,6 @@ export function SteeringCalculator({
     onStateChange?.(next);
   };
   const [touched, setTouched] = useState<ReadonlySet<string>>(() => new Set());
-  const [guideStep, setGuideStep] = useState(0);
   const [mode, setMode] = useState<SweepMode>("heave");
   const [travelAt, setTravelAt] = useState(0);
   const [rollAt, setRollAt] = useState(0);
@@ -332,40 +331,11 @@ export function SteeringCalculator({
         </div>
 
         <div className="card space-y-3 p-4">
-          <Segmented
-            legend="Enter the joints as"
-            testId="steer-entry"
-            value={floorMode ? "floor" : "coordinates"}
-            onChange={(entry) => update((s) => withEntry(s, entry))}
-            options={[
-              { value: "floor", label: "Floor and centre line" },
-              { value: "coordinates", label: "Coordinates" },
-            ]}
-          />
-          {floorMode ? (
-            <Segmented
-              legend="The vehicle is"
-              testId="steer-drive"
-              value={state.drive ?? "lhd"}
-              onChange={(drive) => update((s) => ({ ...s, drive }))}
-              options={[
-                { value: "lhd", label: "Left-hand drive" },
-                { value: "rhd", label: "Right-hand drive" },
-              ]}
-            />
-          ) : null}
+          <EntryChoice state={state} onState={(next) => update(() => next)} />
         </div>
 
         {floorMode && state.floor ? (
-          <MeasureGuide
-            floor={state.floor}
-            step={guideStep}
-            onStep={setGuideStep}
-            onPoint={(key, patch) => update((s) => ({ ...s, floor: { ...s.floor!, [key]: { ...s.floor![key], ...patch } } }))}
-            lengthField={lengthField}
-            axleWidth={state.axleWidth ?? ""}
-            onAxleWidth={(v) => update((s) => ({ ...s, axleWidth: v }))}
-          />
+          <MeasureGuide floor={state.floor} state={state} onState={(next) => update(() => next)} lengthField={lengthField} />
         ) : null}
 
         {floorMode ? null : (
