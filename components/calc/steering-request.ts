@@ -207,7 +207,7 @@ export function pointsFromFloor(state: SteeringFormState): Partial<Record<PointK
     const f = state.floor[k];
     const h = quantityText("length", unit, "height").safeParse(f.height);
     const d = quantityText("length", unit, "distance").safeParse(f.distance);
-    if (h.success && d.success) out[k] = { y: t(sideSign(f.side, state.drive ?? "lhd") * Math.abs(d.data)), z: t(h.data) };
+    if (h.success && d.success) out[k] = { y: t(sideSign(f.side, state.drive ?? "lhd") * Math.abs(d.data) + 0), z: t(h.data) };
   }
   return out;
 }
@@ -300,7 +300,8 @@ export function toSteeringRequest(state: SteeringFormState): SteeringRequestOutc
       const distance = len(`floor.${key}.distance`, f.distance, `the distance of ${label} from the centre line`);
       if (height < 0) errors[`floor.${key}.height`] ??= `${capitalise(label)} is below the floor: measure heights up from the floor.`;
       if (distance < 0) errors[`floor.${key}.distance`] ??= "Give the distance from the centre line as a positive length, and pick the side.";
-      return { y: sideSign(f.side, drive) * Math.abs(distance), z: height };
+      // `+ 0`: a joint on the centre line is y 0 whichever side was picked, not −0.
+      return { y: sideSign(f.side, drive) * Math.abs(distance) + 0, z: height };
     }
     return {
       y: len(`${key}.y`, state[key].y, `${label} y`),
