@@ -48,6 +48,31 @@ export async function benchGeometry(): Promise<{ name: string; ms: number; detai
   ];
 }
 
+/**
+ * The best heights (axle end and frame end) on their own: the same layout without candidate holes, so the
+ * figure is the two optimum searches plus one heave sweep; then with a roll sweep of 5° either way by 0.1°.
+ */
+export async function benchOptimum(): Promise<{ name: string; ms: number; detail: string }[]> {
+  const { holeRange: _holes, ...base } = sweepInput();
+  void _holes;
+  const withRoll: SteeringInput = { ...base, roll: { maxDeg: 5, stepDeg: 0.1 } };
+  const runs = 11;
+  const heaveOnly = computeSteeringGeometry(base);
+  const rolled = computeSteeringGeometry(withRoll);
+  return [
+    {
+      name: "geometry: best heights (axle end and frame end), heave",
+      ms: time(() => computeSteeringGeometry(base), runs),
+      detail: `${heaveOnly.heave.length} heave points, optimum z ${heaveOnly.optimum.z.toFixed(2)} mm, median of ${runs} runs`,
+    },
+    {
+      name: "geometry: best heights (axle end and frame end), heave and roll",
+      ms: time(() => computeSteeringGeometry(withRoll), runs),
+      detail: `${rolled.heave.length} heave + ${rolled.roll.length} roll points (combined grid included), optimum z ${rolled.optimum.z.toFixed(2)} mm, median of ${runs} runs`,
+    },
+  ];
+}
+
 if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {
-  for (const r of await benchGeometry()) console.log(`${r.name}: ${r.ms.toFixed(3)} ms (${r.detail})`);
+  for (const r of [...(await benchGeometry()), ...(await benchOptimum())]) console.log(`${r.name}: ${r.ms.toFixed(3)} ms (${r.detail})`);
 }

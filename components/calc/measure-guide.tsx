@@ -1,7 +1,9 @@
 // The measuring guide: one drawing per joint of the steering links, front view of a solid-axle truck seen from
 // ahead, with the joint to measure ringed and the two tapes drawn: up from the floor to the joint's centre,
 // and across from the vehicle's centre line. Shapes and words carry the meaning, not colour.
-import type { PointKey } from "./steering-request";
+import { useState } from "react";
+import { Segmented } from "./fields";
+import { POINT_LABELS, withEntry, type FloorText, type PointKey, type SteeringFormState } from "./steering-request";
 
 export const GUIDE_ORDER: readonly PointKey[] = ["frameEnd", "axleEnd", "pitmanEnd", "knuckleEnd", "axleCenter"];
 
@@ -103,5 +105,103 @@ export function MeasureGuideDrawing({ point, className = "" }: { point: PointKey
       )}
       <text x={12} y={236} fontSize={10} fill={INK}>Seen from ahead of the vehicle, at ride height, on a level floor.</text>
     </svg>
+  );
+}
+
+/** Draws a length field (label, text, setter) the way the screen using the guide draws its own, errors and all. */
+export type LengthFieldRenderer = (key: string, label: string, value: string, set: (v: string) => void, opts?: { hint?: React.ReactNode; signed?: boolean }) => React.ReactNode;
+
+/**
+ * The step-by-step measuring guide: one joint at a time with its drawing, where the tape goes, its height from
+ * the floor, its distance from the centre line and its side; the list of joints measured so far. The calculator
+ * and a job's geometry step on the runner both use it, so a joint is measured the same way in both.
+ */
+export function MeasureGuide({ floor, onState, state, lengthField }: { floor: Record<PointKey, FloorText>; state: SteeringFormState; onState: (next: SteeringFormState) => void; lengthField: LengthFieldRenderer }) {
+  const [step, onStep] = useState(0);
+  const i = Math.max(0, Math.min(step, GUIDE_ORDER.length - 1));
+  const key = GUIDE_ORDER[i]!;
+  const f = floor[key];
+  const text = GUIDE_TEXT[key];
+  const setF = (patch: Partial<FloorText>) => onState({ ...state, floor: { ...floor, [key]: { ...f, ...patch } } });
+  return (
+    <fieldset className="card space-y-3 p-4" data-testid="measure-guide">
+      <legend className="px-1 text-lg font-bold">Measuring guide</legend>
+      <div className="space-y-3">
+        <p className="text-sm font-semibold text-graphite-700" data-testid="guide-step">Point {i + 1} of {GUIDE_ORDER.length}</p>
+        <h4 className="text-lg font-bold" data-testid="guide-title">{text.title}</h4>
+        <MeasureGuideDrawing point={key} />
+        <p className="text-sm text-graphite-950">{text.what}</p>
+        <p className="text-sm text-graphite-700">{text.tape} Vehicle at ride height on a level floor, wheels straight ahead. Any mix of units reads: <span className="figures">12 3/8 in</span>, <span className="figures">12-3/8&quot;</span>, <span className="figures">314 mm</span>.</p>
+        <div className="grid grid-cols-2 gap-x-3">
+          {lengthField(`floor.${key}.height`, "Height from the floor", f.height, (v) => setF({ height: v }), { signed: false })}
+          {lengthField(`floor.${key}.distance`, "From the centre line", f.distance, (v) => setF({ distance: v }), { signed: false })}
+        </div>
+        <Segmented
+          legend="On the"
+          testId={`st-floor-${key}-side`}
+          value={f.side}
+          onChange={(side) => setF({ side })}
+          options={[
+            { value: "driver", label: "driver's side" },
+            { value: "passenger", label: "passenger side" },
+          ]}
+        />
+        <div className="flex flex-wrap gap-2">
+          <button type="button" className="btn btn-quiet" data-testid="guide-back" disabled={i === 0} onClick={() => onStep(Math.max(0, i - 1))}>
+            <span aria-hidden="true">◀</span> Back
+          </button>
+          <button type="button" className="btn btn-primary" data-testid="guide-next" disabled={i >= GUIDE_ORDER.length - 1} onClick={() => onStep(Math.min(GUIDE_ORDER.length - 1, i + 1))}>
+            Next point <span aria-hidden="true">▶</span>
+          </button>
+        </div>
+        <ol className="grid gap-1 text-sm" aria-label="Points measured">
+          {GUIDE_ORDER.map((k, j) => {
+            const p = floor[k];
+            const done = p.height.trim() !== "" && p.distance.trim() !== "";
+            return (
+              <li key={k}>
+                <button type="button" className={`flex min-h-12 w-full items-center gap-2 rounded-md px-2 text-left ${j === i ? "bg-graphite-100 font-bold" : ""}`} onClick={() => onStep(j)}>
+                  <span aria-hidden="true">{done ? "●" : "○"}</span>
+                  {POINT_LABELS[k]}
+                  <span className="figures ml-auto text-graphite-700">{done ? `${p.height} up · ${/^0*(\.0*)?$/.test(p.distance.trim()) ? "on the centre line" : `${p.distance} ${p.side === "driver" ? "driver" : "passenger"}`}` : "to measure"}</span>
+                </button>
+              </li>
+            );
+          })}
+        </ol>
+        {lengthField("axleWidth", "Axle width (optional)", state.axleWidth ?? "", (v) => onState({ ...state, axleWidth: v }), { signed: false, hint: "wheel-mount face to face, for the length check" })}
+      </div>
+    </fieldset>
+  );
+}
+
+/** How the joints are entered (the guide or coordinates) and, for the guide, which side the driver sits. */
+export function EntryChoice({ state, onState }: { state: SteeringFormState; onState: (next: SteeringFormState) => void }) {
+  const floorMode = state.entry === "floor" && state.floor !== undefined;
+  return (
+    <>
+      <Segmented
+        legend="Enter the joints as"
+        testId="steer-entry"
+        value={floorMode ? "floor" : "coordinates"}
+        onChange={(entry) => onState(withEntry(state, entry))}
+        options={[
+          { value: "floor", label: "Floor and centre line" },
+          { value: "coordinates", label: "Coordinates" },
+        ]}
+      />
+      {floorMode ? (
+        <Segmented
+          legend="The vehicle is"
+          testId="steer-drive"
+          value={state.drive ?? "lhd"}
+          onChange={(drive) => onState({ ...state, drive })}
+          options={[
+            { value: "lhd", label: "Left-hand drive" },
+            { value: "rhd", label: "Right-hand drive" },
+          ]}
+        />
+      ) : null}
+    </>
   );
 }

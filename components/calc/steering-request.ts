@@ -114,58 +114,70 @@ export function steeringFieldLabel(key: string): string {
 
 const DIGITS = { metric: 2, imperial: 4 } as const;
 
-/** An invented lifted-truck layout in each unit system (round figures, not a converted copy). */
+/**
+ * An invented lifted-truck layout in each unit system (round figures, not a converted copy), measured from the
+ * floor and the centre line as the guide asks: the axle centre 16 in / 400 mm up.
+ */
 export function exampleSteeringForm(units: UnitSystem): SteeringFormState {
+  const state = exampleCoordinates(units);
+  return { ...state, entry: "floor", drive: "lhd", floor: floorFromPoints(state, "lhd") };
+}
+
+function exampleCoordinates(units: UnitSystem): SteeringFormState {
   if (units === "imperial") {
     return {
       version: 1,
       units,
-      frameEnd: { y: "-16.5", z: "7" },
-      axleEnd: { y: "19", z: "2.5" },
-      pitmanEnd: { y: "-15.75", z: "6" },
-      knuckleEnd: { y: "17.25", z: "3.75" },
-      axleCenter: { y: "0", z: "0" },
+      frameEnd: { y: "-16.5", z: "23" },
+      axleEnd: { y: "19", z: "18.5" },
+      pitmanEnd: { y: "-15.75", z: "22" },
+      knuckleEnd: { y: "17.25", z: "19.75" },
+      axleCenter: { y: "0", z: "16" },
       steeringArmLength: "6.25",
       steeringRatio: "16",
       travel: { bump: "4", droop: "4", step: "0.25" },
       roll: { on: true, maxDeg: "5", stepDeg: "0.5" },
       holes: [
-        { id: "h1", label: "H1", y: "19", z: "2.5" },
-        { id: "h2", label: "H2", y: "19", z: "3.5" },
-        { id: "h3", label: "H3", y: "19", z: "4.5" },
-        { id: "h4", label: "H4", y: "19", z: "5.5" },
+        { id: "h1", label: "H1", y: "19", z: "18.5" },
+        { id: "h2", label: "H2", y: "19", z: "19.5" },
+        { id: "h3", label: "H3", y: "19", z: "20.5" },
+        { id: "h4", label: "H4", y: "19", z: "21.5" },
       ],
-      holeColumn: { on: false, zMin: "2", zMax: "7", pitch: "0.5", y: "" },
+      holeColumn: { on: false, zMin: "18", zMax: "23", pitch: "0.5", y: "" },
       candidateEnd: "axle",
     };
   }
   return {
     version: 1,
     units,
-    frameEnd: { y: "-420", z: "180" },
-    axleEnd: { y: "480", z: "60" },
-    pitmanEnd: { y: "-400", z: "150" },
-    knuckleEnd: { y: "440", z: "95" },
-    axleCenter: { y: "0", z: "0" },
+    frameEnd: { y: "-420", z: "580" },
+    axleEnd: { y: "480", z: "460" },
+    pitmanEnd: { y: "-400", z: "550" },
+    knuckleEnd: { y: "440", z: "495" },
+    axleCenter: { y: "0", z: "400" },
     steeringArmLength: "160",
     steeringRatio: "16",
     travel: { bump: "100", droop: "100", step: "5" },
     roll: { on: true, maxDeg: "5", stepDeg: "0.5" },
     holes: [
-      { id: "h1", label: "H1", y: "480", z: "60" },
-      { id: "h2", label: "H2", y: "480", z: "85" },
-      { id: "h3", label: "H3", y: "480", z: "110" },
-      { id: "h4", label: "H4", y: "480", z: "135" },
+      { id: "h1", label: "H1", y: "480", z: "460" },
+      { id: "h2", label: "H2", y: "480", z: "485" },
+      { id: "h3", label: "H3", y: "480", z: "510" },
+      { id: "h4", label: "H4", y: "480", z: "535" },
     ],
-    holeColumn: { on: false, zMin: "50", zMax: "175", pitch: "12.5", y: "" },
+    holeColumn: { on: false, zMin: "450", zMax: "575", pitch: "12.5", y: "" },
     candidateEnd: "axle",
   };
 }
 
-export function emptySteeringForm(units: UnitSystem): SteeringFormState {
+/** A blank layout, entered through the measuring guide (floor and centre line) unless told otherwise. */
+export function emptySteeringForm(units: UnitSystem, entry: "floor" | "coordinates" = "floor", drive: Drive = "lhd"): SteeringFormState {
   const p = { y: "", z: "" };
   return {
     version: 1,
+    entry,
+    drive,
+    ...(entry === "floor" ? { floor: emptyFloor() } : {}),
     units,
     frameEnd: { ...p },
     axleEnd: { ...p },
@@ -180,6 +192,40 @@ export function emptySteeringForm(units: UnitSystem): SteeringFormState {
     holeColumn: { on: false, zMin: "", zMax: "", pitch: "", y: "" },
     candidateEnd: "axle",
   };
+}
+
+/**
+ * Floor entries → coordinates with the floor as z = 0 and the centre line as y = 0, in the state's units. A
+ * joint whose height or distance does not read keeps its coordinates as they were.
+ */
+export function pointsFromFloor(state: SteeringFormState): Partial<Record<PointKey, PointText>> {
+  const out: Partial<Record<PointKey, PointText>> = {};
+  if (!state.floor) return out;
+  const unit = preferredUnit("length", state.units);
+  const t = (mm: number) => trimNumber(fromSI("length", mm, unit), DIGITS[state.units]);
+  for (const k of POINT_KEYS) {
+    const f = state.floor[k];
+    const h = quantityText("length", unit, "height").safeParse(f.height);
+    const d = quantityText("length", unit, "distance").safeParse(f.distance);
+    if (h.success && d.success) out[k] = { y: t(sideSign(f.side, state.drive ?? "lhd") * Math.abs(d.data) + 0), z: t(h.data) };
+  }
+  return out;
+}
+
+/**
+ * The same layout entered the other way: coordinates become floor heights and centre-line distances (their z
+ * taken from the floor, their y from the centre line) and back, so switching never loses what was typed.
+ */
+export function withEntry(state: SteeringFormState, entry: "floor" | "coordinates"): SteeringFormState {
+  const drive = state.drive ?? "lhd";
+  const floorNow = state.entry === "floor" && state.floor !== undefined;
+  if (entry === "floor") return floorNow ? state : { ...state, entry, drive, floor: floorFromPoints(state, drive) };
+  return floorNow ? { ...state, ...pointsFromFloor(state), entry, drive } : { ...state, entry, drive };
+}
+
+/** What a job's capture keeps beside its input: the entry units, and the drive when it was measured from the floor. */
+export function captureMeta(state: SteeringFormState): { unit: "mm" | "in"; drive?: Drive } {
+  return { unit: state.units === "imperial" ? "in" : "mm", ...(state.entry === "floor" && state.floor ? { drive: state.drive ?? "lhd" } : {}) };
 }
 
 function capitalise(t: string): string {
@@ -254,7 +300,8 @@ export function toSteeringRequest(state: SteeringFormState): SteeringRequestOutc
       const distance = len(`floor.${key}.distance`, f.distance, `the distance of ${label} from the centre line`);
       if (height < 0) errors[`floor.${key}.height`] ??= `${capitalise(label)} is below the floor: measure heights up from the floor.`;
       if (distance < 0) errors[`floor.${key}.distance`] ??= "Give the distance from the centre line as a positive length, and pick the side.";
-      return { y: sideSign(f.side, drive) * Math.abs(distance), z: height };
+      // `+ 0`: a joint on the centre line is y 0 whichever side was picked, not −0.
+      return { y: sideSign(f.side, drive) * Math.abs(distance) + 0, z: height };
     }
     return {
       y: len(`${key}.y`, state[key].y, `${label} y`),

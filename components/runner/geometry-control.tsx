@@ -1,74 +1,58 @@
 "use client";
-// Steering-link points at ride height, front view (y lateral, z up, from one datum on the frame). Results are
-// computed as they are typed (lib/geometry); the server recomputes them from the same input when saving.
+// A job's geometry step: the steering-link joints at ride height, measured the way the calculator's guide asks
+// (height from the floor, distance from the centre line, which side) or as coordinates, in mm or inches with
+// fractions. Stored as the same front-view input as ever (floor = z 0, centre line = y 0); results are computed
+// as they are typed (lib/geometry) and recomputed by the server from that input when saving.
 import { useEffect, useState } from "react";
-import type { Step } from "@/lib/procedures/schema";
+import { FixList, Segmented, TextField } from "@/components/calc/fields";
+import { EntryChoice, MeasureGuide, type LengthFieldRenderer } from "@/components/calc/measure-guide";
+import {
+  captureMeta,
+  convertSteeringForm,
+  emptySteeringForm,
+  floorFromPoints,
+  fromSteeringRequest,
+  plausibility,
+  POINT_KEYS,
+  POINT_LABELS,
+  sideSign,
+  steeringFieldLabel,
+  toSteeringRequest,
+  type PointKey,
+  type SteeringFormState,
+} from "@/components/calc/steering-request";
+import { symbolFor, type UnitSystem } from "@/components/calc/values";
+import type { SteeringInput } from "@/lib/geometry";
 import { geometryResults, requiredCaptures } from "@/lib/jobs/geometry";
-import { defaultPadUnit, show, symbolOf } from "@/lib/jobs/units";
+import { show } from "@/lib/jobs/units";
+import type { Step } from "@/lib/procedures/schema";
 import type { GeometryCapture, GeometryValue } from "@/lib/jobs/values";
-import { applyKey, NumberPad, UnitSwitch } from "./number-pad";
-import { initialText, storedFrom } from "./pad-state";
 import { Pill, VerdictBox } from "./verdict";
 
 type Geometry = Extract<Step, { kind: "geometry" }>;
 type Which = "before" | "after";
 
-const POINTS = [
-  { id: "F", label: "Lateral link, frame end" },
-  { id: "A", label: "Lateral link, axle end" },
-  { id: "P", label: "Drag link, pitman-arm end" },
-  { id: "K", label: "Drag link, steering-arm end" },
-  { id: "C", label: "Axle centre" },
-] as const;
-const SCALARS = [
-  { id: "r", label: "Steering arm length", length: true },
-  { id: "bump", label: "Bump travel", length: true },
-  { id: "droop", label: "Droop travel", length: true },
-  { id: "ratio", label: "Steering ratio (optional)", length: false },
-] as const;
-function fieldName(id: string): string {
-  const [p, axis] = id.split(".");
-  const point = POINTS.find((x) => x.id === p);
-  if (point) return `${point.label}, ${axis}`;
-  return SCALARS.find((x) => x.id === id)?.label ?? id;
-}
-const FIELD_ORDER = [...POINTS.flatMap((p) => [`${p.id}.y`, `${p.id}.z`]), ...SCALARS.map((s) => s.id)];
+// A job records heave at the fitted bracket every 5 mm; the step is not asked of the welder.
 const STEP_MM = 5;
+// Inputs, radio labels and buttons at least 48 px high for a gloved finger (the calculator's own are 44 px).
+const LARGE = "[&_.field-input]:min-h-12 [&_fieldset_label]:min-h-12 [&_.btn]:min-h-12";
 
-function textsFrom(c: GeometryCapture | undefined, unit: string): Record<string, string> {
-  const t: Record<string, string> = {};
-  const len = (v: number | undefined) => initialText(v, { quantity: "length", unit });
-  if (!c) return t;
-  const i = c.input;
-  const pts = { F: i.trackBar.frameEnd, A: i.trackBar.axleEnd, P: i.dragLink.pitmanEnd, K: i.dragLink.knuckleEnd, C: i.axleCenter };
-  for (const [k, p] of Object.entries(pts)) {
-    t[`${k}.y`] = len(p.y);
-    t[`${k}.z`] = len(p.z);
-  }
-  t.r = len(i.steeringArmLength);
-  t.bump = len(i.travel.bump);
-  t.droop = len(i.travel.droop);
-  t.ratio = i.steeringRatio === undefined ? "" : String(i.steeringRatio);
-  return t;
+/** The form a stored capture was typed in: floor entries when it carries a drive, coordinates otherwise (older captures). */
+function stateFrom(c: GeometryCapture | undefined, unitSystem: UnitSystem): SteeringFormState {
+  if (!c) return { ...emptySteeringForm(unitSystem), travel: { bump: "", droop: "", step: String(STEP_MM) } };
+  const s = fromSteeringRequest(c.input, c.unit === "in" ? "imperial" : "metric");
+  return c.drive ? { ...s, entry: "floor", drive: c.drive, floor: floorFromPoints(s, c.drive) } : { ...s, entry: "coordinates", drive: "lhd" };
 }
 
-function inputFrom(t: Record<string, string>, unit: string): GeometryCapture["input"] | null {
-  const len = (k: string) => storedFrom(t[k] ?? "", { quantity: "length", unit });
-  const pt = (k: string) => {
-    const y = len(`${k}.y`);
-    const z = len(`${k}.z`);
-    return y === undefined || z === undefined ? null : { y, z };
-  };
-  const [F, A, P, K, C] = ["F", "A", "P", "K", "C"].map(pt);
-  const r = len("r");
-  const bump = len("bump");
-  const droop = len("droop");
-  const ratio = storedFrom(t.ratio ?? "", { quantity: null, unit: "" });
-  if (!F || !A || !P || !K || !C || r === undefined || bump === undefined || droop === undefined) return null;
-  return { trackBar: { frameEnd: F, axleEnd: A }, dragLink: { pitmanEnd: P, knuckleEnd: K }, axleCenter: C, steeringArmLength: r, travel: { bump, droop, step: STEP_MM }, ...(ratio ? { steeringRatio: ratio } : {}) };
+/** The stored input: what the form reads as, heave only, every 5 mm. Null while something is missing or wrong. */
+function inputOf(state: SteeringFormState): { input: SteeringInput | null; errors: Record<string, string> } {
+  const outcome = toSteeringRequest({ ...state, travel: { ...state.travel, step: `${STEP_MM} mm` } });
+  if (!outcome.ok) return { input: null, errors: outcome.errors };
+  const { travel, ...rest } = outcome.request;
+  return { input: { ...rest, travel: { ...travel, step: STEP_MM } } as SteeringInput, errors: {} };
 }
 
-export function GeometryControl({ stepId, spec, value, readOnly, unitSystem, onChange }: { stepId: string; spec: Geometry; value: GeometryValue; readOnly: boolean; unitSystem: "metric" | "imperial"; onChange: (v: GeometryValue) => void }) {
+export function GeometryControl({ stepId, spec, value, readOnly, unitSystem, onChange }: { stepId: string; spec: Geometry; value: GeometryValue; readOnly: boolean; unitSystem: UnitSystem; onChange: (v: GeometryValue) => void }) {
   const captures = requiredCaptures(spec.capture);
   const [which, setWhich] = useState<Which>(captures.find((c) => !value[c]) ?? captures[0]!);
   return (
@@ -76,8 +60,8 @@ export function GeometryControl({ stepId, spec, value, readOnly, unitSystem, onC
       {captures.length > 1 ? (
         <div role="tablist" aria-label="Capture" className="flex gap-2">
           {captures.map((c) => (
-            <button key={c} type="button" role="tab" aria-selected={which === c} onClick={() => setWhich(c)} className={`min-h-12 rounded-md border-2 px-4 font-bold ${which === c ? "border-graphite-950 bg-graphite-900 text-white" : "border-graphite-500 bg-white"}`}>
-              {c === "before" ? "Before" : "After"} {value[c] ? "●" : "○"}
+            <button key={c} type="button" role="tab" aria-selected={which === c} data-testid={`geometry-tab-${c}`} onClick={() => setWhich(c)} className={`min-h-12 rounded-md border-2 px-4 font-bold ${which === c ? "border-graphite-950 bg-graphite-900 text-white" : "border-graphite-500 bg-white"}`}>
+              {c === "before" ? "Before" : "After"} {value[c] ? "● captured" : "○ to capture"}
             </button>
           ))}
         </div>
@@ -89,43 +73,39 @@ export function GeometryControl({ stepId, spec, value, readOnly, unitSystem, onC
   );
 }
 
-function CaptureForm({ stepId, which, capture, readOnly, unitSystem, onCapture, other }: { stepId: string; which: Which; capture: GeometryCapture | undefined; readOnly: boolean; unitSystem: "metric" | "imperial"; onCapture: (c: GeometryCapture | undefined) => void; other?: GeometryCapture }) {
+function CaptureForm({ stepId, which, capture, readOnly, unitSystem, onCapture, other }: { stepId: string; which: Which; capture: GeometryCapture | undefined; readOnly: boolean; unitSystem: UnitSystem; onCapture: (c: GeometryCapture | undefined) => void; other?: GeometryCapture | undefined }) {
   const storeKey = `gusset:geometry:${stepId}:${which}`;
-  const [unit, setUnit] = useState<string>(capture?.unit ?? defaultPadUnit("length", unitSystem));
-  const [texts, setTexts] = useState<Record<string, string>>(() => textsFrom(capture, capture?.unit ?? defaultPadUnit("length", unitSystem)));
-  const [active, setActive] = useState<string>("F.y");
+  const [state, setState] = useState<SteeringFormState>(() => stateFrom(capture, unitSystem));
+  const [touched, setTouched] = useState<ReadonlySet<string>>(() => new Set());
   // Half-typed points survive a reload on this tablet; only a complete capture goes to the server.
   useEffect(() => {
     if (capture || readOnly) return;
     try {
-      const saved = localStorage.getItem(storeKey);
-      if (saved) {
-        const parsed = JSON.parse(saved) as { unit: string; texts: Record<string, string> };
-        // eslint-disable-next-line react-hooks/set-state-in-effect -- restoring a local draft once, after mount
-        setTexts(parsed.texts);
-        setUnit(parsed.unit);
-      }
+      const saved = JSON.parse(localStorage.getItem(storeKey) ?? "null") as SteeringFormState | null;
+      // eslint-disable-next-line react-hooks/set-state-in-effect -- restoring a local draft once, after mount
+      if (saved?.version === 1 && saved.travel) setState(saved);
     } catch {
-      /* no local draft */
+      /* no local draft, or one from before the guide */
     }
   }, [capture, readOnly, storeKey]);
 
-  const update = (next: Record<string, string>, u: string) => {
-    setTexts(next);
+  const update = (next: SteeringFormState) => {
+    setState(next);
     try {
-      localStorage.setItem(storeKey, JSON.stringify({ unit: u, texts: next }));
+      localStorage.setItem(storeKey, JSON.stringify(next));
     } catch {
       /* storage full or off: the server copy still follows once complete */
     }
-    const input = inputFrom(next, u);
+    const { input } = inputOf(next);
     if (!input) return onCapture(undefined);
     try {
-      onCapture({ input, unit: u === "in" ? "in" : "mm", results: geometryResults(input) });
+      onCapture({ input, ...captureMeta(next), results: geometryResults(input) });
     } catch {
       onCapture(undefined);
     }
   };
-  const input = inputFrom(texts, unit);
+
+  const { input, errors } = inputOf(state);
   let results: GeometryCapture["results"] | null = null;
   let problem: string | null = null;
   if (input) {
@@ -135,74 +115,118 @@ function CaptureForm({ stepId, which, capture, readOnly, unitSystem, onCapture, 
       problem = e instanceof Error ? e.message : "These points cannot be computed.";
     }
   }
-  const isLength = (id: string) => id !== "ratio";
-  const cell = (id: string, label: string) => (
-    <button
-      type="button"
-      disabled={readOnly}
-      aria-label={label}
-      aria-pressed={active === id}
-      onClick={() => setActive(id)}
-      data-testid={`geo-${id}`}
-      className={`figures min-h-12 w-full rounded-md border-2 bg-white px-2 text-right text-lg font-semibold ${!readOnly && active === id ? "border-graphite-950 ring-4 ring-primer-400" : "border-graphite-500"}`}
-    >
-      {texts[id] || "—"}
-    </button>
+  const warnings = input ? plausibility(input, state) : [];
+  const floorMode = state.entry === "floor" && state.floor !== undefined;
+  const lenUnit = symbolFor("length", state.units);
+  const unitText = state.units === "imperial" ? "in" : "mm";
+
+  if (readOnly) return <CaptureSummary state={state} results={results} unit={unitText} other={other} />;
+
+  const errorFor = (key: string) => (touched.has(key) || textAt(state, key).trim() !== "" ? errors[key] : undefined);
+  const lengthField: LengthFieldRenderer = (key, label, value, set, opts = {}) => (
+    <TextField id={`geo-${key.replace(/\./g, "-")}`} testId={`st-${key.replace(/\./g, "-")}`} label={label} value={value} onChange={set} onBlur={() => setTouched((t) => new Set(t).add(key))} unit={lenUnit} error={errorFor(key)} hint={opts.hint} inputMode="text" />
   );
+  const set = (patch: Partial<SteeringFormState>) => update({ ...state, ...patch });
+  const fixList = Object.entries(errors)
+    .filter(([key]) => errorFor(key))
+    .map(([key, message]) => ({ id: `geo-${key.replace(/\./g, "-")}`, label: steeringFieldLabel(key), message }));
+
   return (
-    <div className={readOnly ? "space-y-3" : "grid gap-4 md:grid-cols-[minmax(0,1fr)_18rem]"}>
-      <div className="space-y-3">
-        <p className="text-graphite-900">Front view at ride height, from one datum on the frame: y across the vehicle, z up, in {symbolOf("length", unit)}.</p>
-        <table className="w-full border-separate border-spacing-2">
-          <thead>
-            <tr className="text-left text-sm"><th scope="col">Point</th><th scope="col">y</th><th scope="col">z</th></tr>
-          </thead>
-          <tbody>
-            {POINTS.map((p) => (
-              <tr key={p.id}>
-                <th scope="row" className="text-left font-semibold">{p.label}</th>
-                <td>{cell(`${p.id}.y`, `${p.label} y`)}</td>
-                <td>{cell(`${p.id}.z`, `${p.label} z`)}</td>
-              </tr>
-            ))}
-            {SCALARS.map((s) => (
-              <tr key={s.id}>
-                <th scope="row" className="text-left font-semibold">{s.label}{s.length ? ` (${symbolOf("length", unit)})` : ""}</th>
-                <td colSpan={2}>{cell(s.id, s.label)}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-        {!readOnly ? <UnitSwitch quantity="length" unit={unit} label="Lengths" onUnit={(u) => { setUnit(u); update(texts, u); }} /> : null}
-        {results ? (
-          // No acceptance limit is set by the step, so the result is information, not a verdict.
-          <VerdictBox tone="info" title={`Worst bump steer ${results.worstHeave.wheelSteerDeg.toFixed(2)}° at ${show("length", results.worstHeave.travel, unit)}`} testId="geometry-results">
-              Lateral link {results.trackBarAngleDeg.toFixed(2)}°, drag link {results.dragLinkAngleDeg.toFixed(2)}°, difference {results.angleDifferenceDeg.toFixed(2)}°.
-              {results.steeringWheelDeg !== null ? ` Steering wheel ${results.steeringWheelDeg.toFixed(1)}°.` : ""}
-              {other?.results ? (
-                <span className="mt-1 block">
-                  Before: worst {other.results.worstHeave.wheelSteerDeg.toFixed(2)}°, difference {other.results.angleDifferenceDeg.toFixed(2)}°{" "}
-                  <Pill tone={Math.abs(results.worstHeave.wheelSteerDeg) <= Math.abs(other.results.worstHeave.wheelSteerDeg) ? "pass" : "fail"}>
-                    {Math.abs(results.worstHeave.wheelSteerDeg) <= Math.abs(other.results.worstHeave.wheelSteerDeg) ? "better or equal" : "worse than before"}
-                  </Pill>
-                </span>
-              ) : null}
-          </VerdictBox>
-        ) : problem ? (
-          <VerdictBox tone="fail" title="These points cannot be computed" testId="geometry-results">{problem}</VerdictBox>
+    <div className={`grid gap-4 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)] ${LARGE}`} data-testid="geometry-capture">
+      <div className="min-w-0 space-y-3">
+        <div className="card flex flex-wrap items-end gap-3 p-4">
+          <EntryChoice state={state} onState={update} />
+          <Segmented legend="Units" testId="steer-units" value={state.units} onChange={(u) => update(convertSteeringForm(state, u))} options={[{ value: "metric", label: "mm" }, { value: "imperial", label: "in" }]} />
+        </div>
+        {floorMode && state.floor ? (
+          <MeasureGuide floor={state.floor} state={state} onState={update} lengthField={lengthField} />
         ) : (
-          <VerdictBox tone="idle" title="Enter every point, the arm length and the travel" testId="geometry-results" />
+          <fieldset className="card space-y-2 p-4">
+            <legend className="px-1 text-lg font-bold">Joints, front view at ride height</legend>
+            <p className="text-sm text-graphite-700">From one datum on the frame: y across the vehicle (+ to the right seen from ahead), z up.</p>
+            {POINT_KEYS.map((k) => (
+              <div key={k} className="grid grid-cols-2 gap-x-3" role="group" aria-label={POINT_LABELS[k]}>
+                <p className="col-span-2 text-sm font-bold">{POINT_LABELS[k]}</p>
+                {lengthField(`${k}.y`, "y", state[k].y, (v) => set({ [k]: { ...state[k], y: v } }))}
+                {lengthField(`${k}.z`, "z", state[k].z, (v) => set({ [k]: { ...state[k], z: v } }))}
+              </div>
+            ))}
+          </fieldset>
         )}
       </div>
-      {!readOnly ? (
-        <div className="md:sticky md:top-28 md:self-start">
-          <p className="mb-2 text-sm font-semibold">Typing into: {fieldName(active)}</p>
-          <NumberPad negative={isLength(active)} onKey={(k) => update({ ...texts, [active]: applyKey(texts[active] ?? "", k, { negative: isLength(active) }) }, unit)} />
-          <button type="button" className="btn btn-quiet mt-2 min-h-14 w-full text-lg" onClick={() => setActive(FIELD_ORDER[(FIELD_ORDER.indexOf(active) + 1) % FIELD_ORDER.length]!)}>
-            Next field →
-          </button>
-        </div>
+      <div className="min-w-0 space-y-3">
+        <fieldset className="card space-y-2 p-4">
+          <legend className="px-1 text-lg font-bold">Steering arm and travel</legend>
+          <div className="grid grid-cols-2 gap-x-3">
+            {lengthField("steeringArmLength", "Steering arm length", state.steeringArmLength, (v) => set({ steeringArmLength: v }), { hint: "ball to steering axis" })}
+            <TextField id="geo-steeringRatio" testId="st-steeringRatio" label="Steering ratio (optional)" value={state.steeringRatio} onChange={(v) => set({ steeringRatio: v })} unit=": 1" error={errorFor("steeringRatio")} inputMode="decimal" />
+            {lengthField("travel.bump", "Bump travel", state.travel.bump, (v) => set({ travel: { ...state.travel, bump: v } }))}
+            {lengthField("travel.droop", "Droop travel", state.travel.droop, (v) => set({ travel: { ...state.travel, droop: v } }))}
+          </div>
+        </fieldset>
+        {fixList.length ? <FixList items={fixList} testId="geometry-fix-list" /> : null}
+        {warnings.length ? (
+          <div className="rounded-md border-2 border-graphite-900 bg-verdict-warnbg p-3" data-testid="geometry-plausibility">
+            <p className="font-bold"><span aria-hidden="true">▲ </span>Check these readings</p>
+            <ul className="ml-5 list-disc text-sm">{warnings.map((w) => <li key={w}>{w}</li>)}</ul>
+          </div>
+        ) : null}
+        <Results results={results} problem={problem} unit={unitText} other={other} />
+      </div>
+    </div>
+  );
+}
+
+function textAt(state: SteeringFormState, key: string): string {
+  const v = key.split(".").reduce<unknown>((o, k) => (o && typeof o === "object" ? (o as Record<string, unknown>)[k] : undefined), state);
+  return typeof v === "string" ? v : "";
+}
+
+function Results({ results, problem, unit, other }: { results: GeometryCapture["results"] | null; problem: string | null; unit: string; other?: GeometryCapture | undefined }) {
+  if (problem) return <VerdictBox tone="fail" title="These points cannot be computed" testId="geometry-results">{problem}</VerdictBox>;
+  if (!results) return <VerdictBox tone="idle" title="Measure every joint, the arm length and the travel" testId="geometry-results" />;
+  const better = other?.results ? Math.abs(results.worstHeave.wheelSteerDeg) <= Math.abs(other.results.worstHeave.wheelSteerDeg) : null;
+  // No acceptance limit is set by the step, so the result is information, not a verdict.
+  return (
+    <VerdictBox tone="info" title={`Worst bump steer ${results.worstHeave.wheelSteerDeg.toFixed(2)}° at ${show("length", results.worstHeave.travel, unit)}`} testId="geometry-results">
+      Lateral link {results.trackBarAngleDeg.toFixed(2)}°, drag link {results.dragLinkAngleDeg.toFixed(2)}°, difference {results.angleDifferenceDeg.toFixed(2)}°.
+      {results.steeringWheelDeg !== null ? ` Steering wheel ${results.steeringWheelDeg.toFixed(1)}°.` : ""}
+      {other?.results ? (
+        <span className="mt-1 block">
+          Before: worst {other.results.worstHeave.wheelSteerDeg.toFixed(2)}°, difference {other.results.angleDifferenceDeg.toFixed(2)}°{" "}
+          <Pill tone={better ? "pass" : "fail"}>{better ? "better or equal" : "worse than before"}</Pill>
+        </span>
       ) : null}
+    </VerdictBox>
+  );
+}
+
+/** A signed capture: the joints as they were entered, and the results. */
+function CaptureSummary({ state, results, unit, other }: { state: SteeringFormState; results: GeometryCapture["results"] | null; unit: string; other?: GeometryCapture | undefined }) {
+  const floor = state.entry === "floor" ? state.floor : undefined;
+  const sideOf = (k: PointKey) => (floor ? (floor[k].distance.trim() === "0" ? "on the centre line" : floor[k].side === "driver" ? "driver's side" : "passenger side") : "");
+  return (
+    <div className="space-y-3">
+      <table className="w-full text-left text-sm" data-testid="geometry-summary">
+        <thead className="bg-graphite-100">
+          <tr>
+            <th scope="col" className="px-2 py-1">Joint</th>
+            <th scope="col" className="px-2 py-1 text-right">{floor ? "Up from the floor" : "y"}, {unit}</th>
+            <th scope="col" className="px-2 py-1 text-right">{floor ? "From the centre line" : "z"}, {unit}</th>
+          </tr>
+        </thead>
+        <tbody className="figures">
+          {POINT_KEYS.map((k) => (
+            <tr key={k} className="border-t border-graphite-200">
+              <th scope="row" className="px-2 py-1 font-sans font-semibold">{POINT_LABELS[k]}</th>
+              <td className="px-2 py-1 text-right">{floor ? floor[k].height : state[k].y}</td>
+              <td className="px-2 py-1 text-right">{floor ? `${floor[k].distance} ${sideOf(k)}` : state[k].z}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      {floor ? <p className="text-sm text-graphite-700">{state.drive === "rhd" ? "Right-hand drive" : "Left-hand drive"}; driver&apos;s side at {sideSign("driver", state.drive ?? "lhd") > 0 ? "+" : "−"}y.</p> : null}
+      <Results results={results} problem={null} unit={unit} other={other} />
     </div>
   );
 }

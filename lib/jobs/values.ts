@@ -47,6 +47,8 @@ export const geometryCaptureSchema = z
   .object({
     input: steeringInputSchema,
     unit: z.enum(["mm", "in"]).default("mm"),
+    /** Present when the joints were measured from the floor: which side the driver sits, to show the sides again. */
+    drive: z.enum(["lhd", "rhd"]).optional(),
     capturedAt: z.string().max(40).optional(),
   })
   .strip();

@@ -17,6 +17,8 @@ test("every role reaches the calculators from the main navigation", async ({ pag
 test("steering links: a layout entered by hand ranks its holes and the diagram moves with the slider and the step buttons", async ({ page }) => {
   await signedInAs(page, "lead@irongully.example");
   await page.goto("/calc/steering");
+  // The measuring guide is the default entry; this layout is given as coordinates.
+  await page.getByTestId("steer-entry-coordinates").click();
   await page.getByRole("button", { name: "Clear" }).click();
 
   // An invented layout in mm. Drag link slope = (60 − 170) / (420 − (−430)) = −0.12941; the lateral link is
@@ -90,6 +92,7 @@ test("steering links: an impossible layout says why instead of drawing", async (
   await signedInAs(page, "welder@irongully.example");
   await page.goto("/calc/steering");
   // A vertical lateral link (same y at both ends) locates nothing sideways.
+  await page.getByTestId("steer-entry-coordinates").click();
   await page.getByTestId("st-axleEnd-y").fill("-420");
   await expect(page.getByTestId("steer-impossible")).toContainText("vertical");
   await expect(page.getByTestId("steering-diagram")).toHaveCount(0);
@@ -133,7 +136,7 @@ test("the calculators open in the person's own units", async ({ page }) => {
   try {
     await page.goto("/calc/steering");
     await expect(page.getByTestId("steer-units-imperial")).toContainText("●");
-    await expect(page.getByTestId("st-frameEnd-y")).toHaveValue("-16.5");
+    await expect(page.getByTestId("st-floor-frameEnd-distance")).toHaveValue("16.5");
     await expect(page.getByTestId("worst-heave")).toBeVisible();
     await page.goto("/calc/heat-input");
     await expect(page.getByTestId("hi-speed-unit-in/min")).toContainText("●");

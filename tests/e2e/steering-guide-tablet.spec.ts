@@ -25,6 +25,20 @@ async function rankingOf(page: Page) {
   return { rows, best: await page.getByTestId("optimum-steer").innerText() };
 }
 
+/** Neither the page nor the ranking table scrolls sideways; a screenshot of the two is kept to look at. */
+async function noSidewaysScroll(page: Page, name: string) {
+  expect(await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth), `${name}: page`).toBeLessThanOrEqual(0);
+  const table = await page.getByTestId("hole-ranking").evaluate((t) => {
+    const box = t.parentElement!;
+    return { over: box.scrollWidth - box.clientWidth, tableRight: t.getBoundingClientRect().right, boxRight: box.getBoundingClientRect().right };
+  });
+  expect(table.over, `${name}: ranking table`).toBeLessThanOrEqual(0);
+  expect(table.tableRight, `${name}: ranking table inside its card`).toBeLessThanOrEqual(table.boxRight + 0.5);
+  // The drawing is the larger part of the row, not a thumbnail.
+  expect((await page.getByTestId("steering-diagram").boundingBox())!.width, `${name}: drawing width`).toBeGreaterThanOrEqual(380);
+  await page.getByTestId("steer-side-by-side").screenshot({ path: `.data/screens-${process.env.TEST_APP_PORT ?? "3100"}/steering-${name}.png` });
+}
+
 async function common(page: Page) {
   await page.getByTestId("st-steeringArmLength").fill("160");
   await page.getByTestId("st-steeringRatio").fill("16");
@@ -42,7 +56,12 @@ test("floor heights and centre-line distances rank the holes as the same joints 
   await signedInAs(page, "lead@irongully.example");
   await page.goto("/calc/steering");
 
+  // The page opens on the measuring guide, with an example measured from the floor.
+  await expect(page.getByTestId("measure-guide")).toBeVisible();
+  await expect(page.getByTestId("steer-entry-floor")).toContainText("●");
+
   // 1. As coordinates.
+  await page.getByTestId("steer-entry-coordinates").tap();
   await page.getByRole("button", { name: "Clear" }).tap();
   for (const [key, y, z] of POINTS) {
     await page.getByTestId(`st-${key}-y`).fill(String(y));
@@ -97,6 +116,15 @@ test("floor heights and centre-line distances rank the holes as the same joints 
   await expect(page.getByTestId("optimum-row")).toContainText("drill here");
   await page.getByTestId("steer-side-by-side").screenshot({ path: `.data/screens-${process.env.TEST_APP_PORT ?? "3100"}/steering-side-by-side.png` });
   await page.getByTestId("measure-guide").screenshot({ path: `.data/screens-${process.env.TEST_APP_PORT ?? "3100"}/steering-guide.png` });
+  await noSidewaysScroll(page, "landscape");
+
+  // Portrait: the drawing and the ranking stacked, still nothing scrolling sideways.
+  await page.setViewportSize({ width: 768, height: 1024 });
+  const drawingP = (await page.getByTestId("steering-diagram").boundingBox())!;
+  const rankingP = (await page.getByTestId("ranking-panel").boundingBox())!;
+  expect(rankingP.y).toBeGreaterThanOrEqual(drawingP.y + drawingP.height - 1);
+  await noSidewaysScroll(page, "portrait");
+  await page.setViewportSize({ width: 1024, height: 768 });
 
   // Plausibility: a joint below the floor is refused with a message on its field.
   await page.getByTestId("st-floor-axleCenter-height").fill("-20");

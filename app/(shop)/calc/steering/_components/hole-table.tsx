@@ -1,3 +1,4 @@
+import { Fragment, type ReactNode } from "react";
 import { StatusBadge } from "@/components/status-badge";
 import { toeAtRim, type OptimumResult, type Point2, type SteeringResult } from "@/lib/geometry";
 import { figure, shown, shownValue, symbolFor, type UnitSystem } from "@/components/calc/values";
@@ -7,8 +8,8 @@ const L = { metric: 1, imperial: 3 } as const;
 const RANK_WORDS = { heave: "heave alone", heaveAndRoll: "heave and roll, each on its own", combined: "heave and roll together (every heave point at every roll angle)" } as const;
 
 // Candidate holes, best first by the chosen measure, with the best height on the hole line as its own
-// "drill here" row. Each row gives wheel steer over heave, roll and combined, and what that is at the steering
-// wheel and at the rim.
+// "drill here" row. Each row gives the ranked wheel steer with what that is at the steering wheel and at the
+// rim, and under it the figure of each sweep (heave, roll, both together) and the bar length.
 export function HoleTable({
   result,
   units,
@@ -33,60 +34,76 @@ export function HoleTable({
   const hasRoll = result.roll.length > 0;
   const hasCombined = result.worst.combined !== null;
   const steer = (v: number | null) => (v === null ? "—" : `${figure(v, 2, { sign: true })}°`);
-  const ranked = (v: number | null) => (v === null ? null : v);
-  const extras = (v: number | null) => (
+  // What the ranked figure is at the steering wheel and at the rim, under it in the same cell.
+  const atWheelAndRim = (v: number | null) =>
+    v === null
+      ? null
+      : [ratio !== undefined ? `wheel ${figure(v * ratio, 1, { sign: true })}°` : null, rimDiameter !== undefined ? `rim ${shown("length", toeAtRim(v, rimDiameter), units, { metric: 1, imperial: 3 }, { sign: true })}` : null]
+          .filter(Boolean)
+          .join(" · ");
+  // Every sweep's own figure and the bar length, on a line of its own under the row: the table stays three
+  // columns wide, so it fits beside the drawing on a tablet without scrolling sideways.
+  const detail = (heave: ReactNode, roll: number | null, both: number | null, bar: number) => (
     <>
-      {ratio !== undefined ? <td className="px-3 py-2 text-right">{v === null ? "—" : `${figure(v * ratio, 1, { sign: true })}°`}</td> : null}
-      {rimDiameter !== undefined ? <td className="px-3 py-2 text-right">{v === null ? "—" : shown("length", toeAtRim(v, rimDiameter), units, { metric: 1, imperial: 3 }, { sign: true })}</td> : null}
+      heave {heave}
+      {hasRoll ? <> · roll {steer(roll)}</> : null}
+      {hasCombined ? <> · both {steer(both)}</> : null} · bar {shown("length", bar, units, L)}
     </>
   );
+  const optimumRanked = result.rankBy === "combined" ? optimum.combinedWheelSteerDeg : result.rankBy === "heaveAndRoll" ? (Math.abs(optimum.rollWheelSteerDeg ?? 0) > Math.abs(optimum.heaveWheelSteerDeg) ? optimum.rollWheelSteerDeg : optimum.heaveWheelSteerDeg) : optimum.heaveWheelSteerDeg;
+  const cell = "px-2 py-2";
   return (
-    <div className="card overflow-x-auto">
-      <table className="w-full border-collapse text-left text-sm" data-testid="hole-ranking">
+    <div className="card min-w-0">
+      <table className="w-full table-fixed border-collapse text-left text-sm" data-testid="hole-ranking">
         <caption className="sr-only">Candidate holes ranked by the largest wheel steer over {RANK_WORDS[result.rankBy ?? "heave"]}, smallest first</caption>
+        <colgroup>
+          <col />
+          <col className="w-[28%]" />
+          <col className="w-[30%]" />
+        </colgroup>
         <thead className="bg-graphite-100">
           <tr>
-            <th scope="col" className="px-3 py-2">Rank</th>
-            <th scope="col" className="px-3 py-2">Hole</th>
-            <th scope="col" className="px-3 py-2 text-right">Height z, {u}</th>
-            <th scope="col" className="px-3 py-2 text-right">Bar, {u}</th>
-            <th scope="col" className="px-3 py-2 text-right">Heave</th>
-            {hasRoll ? <th scope="col" className="px-3 py-2 text-right">Roll</th> : null}
-            {hasCombined ? <th scope="col" className="px-3 py-2 text-right">Both</th> : null}
-            {ratio !== undefined ? <th scope="col" className="px-3 py-2 text-right">Steering wheel</th> : null}
-            {rimDiameter !== undefined ? <th scope="col" className="px-3 py-2 text-right">Toe at rim</th> : null}
+            <th scope="col" className={cell}>Hole</th>
+            <th scope="col" className={`${cell} text-right`}>Height, {u}</th>
+            <th scope="col" className={`${cell} text-right`}>Worst steer</th>
           </tr>
         </thead>
         <tbody className="figures">
           <tr className="border-t-2 border-graphite-900 bg-white" data-testid="optimum-row">
-            <td className="px-3 py-2"><StatusBadge tone="info">drill here</StatusBadge></td>
-            <td className="px-3 py-2 font-sans font-semibold">Best height on the line</td>
-            <td className="px-3 py-2 text-right font-semibold" data-testid="optimum-z">{shownValue("length", optimum.z, units, L)}</td>
-            <td className="px-3 py-2 text-right">{shownValue("length", optimum.barLength, units, L)}</td>
-            <td className="px-3 py-2 text-right">{steer(optimum.heaveWheelSteerDeg)}</td>
-            {hasRoll ? <td className="px-3 py-2 text-right">{steer(optimum.rollWheelSteerDeg)}</td> : null}
-            {hasCombined ? <td className="px-3 py-2 text-right">{steer(optimum.combinedWheelSteerDeg)}</td> : null}
-            {extras(ranked(hasCombined ? optimum.combinedWheelSteerDeg : optimum.heaveWheelSteerDeg))}
+            <td className={`${cell} font-sans font-semibold`}>
+              <StatusBadge tone="info">drill here</StatusBadge> <span className="block">Best height on the line</span>
+            </td>
+            <td className={`${cell} text-right font-semibold`} data-testid="optimum-z">{shownValue("length", optimum.z, units, L)}</td>
+            <td className={`${cell} text-right font-semibold`}>
+              {steer(optimumRanked)}
+              <span className="block text-xs font-normal text-graphite-700">{atWheelAndRim(optimumRanked)}</span>
+            </td>
+          </tr>
+          <tr className="bg-white">
+            <td colSpan={3} className="px-2 pb-2 text-xs text-graphite-700">{detail(steer(optimum.heaveWheelSteerDeg), optimum.rollWheelSteerDeg, optimum.combinedWheelSteerDeg, optimum.barLength)}</td>
           </tr>
           {holes.map((h) => {
             const bar = Math.hypot(h.y - fixedEnd.y, h.z - fixedEnd.z);
             const here = Math.abs(h.y - currentEnd.y) < 1e-6 && Math.abs(h.z - currentEnd.z) < 1e-6;
+            const tint = h.rank === 1 ? "bg-primer-100" : "";
             return (
-              <tr key={`${h.rank}-${h.label}`} className={`border-t border-graphite-200 ${h.rank === 1 ? "bg-primer-100" : ""}`} data-testid={`hole-row-${h.rank}`}>
-                <td className="px-3 py-2 font-semibold">
-                  {h.rank === 1 ? <StatusBadge tone="pass">1 best</StatusBadge> : h.rank}
-                </td>
-                <td className="px-3 py-2 font-sans font-semibold" data-testid={`hole-label-${h.rank}`}>
-                  {h.label}
-                  {here ? <span className="ml-2"><StatusBadge tone="info">as fitted</StatusBadge></span> : null}
-                </td>
-                <td className="px-3 py-2 text-right">{shownValue("length", h.z, units, L)}</td>
-                <td className="px-3 py-2 text-right">{shownValue("length", bar, units, L)}</td>
-                <td className="px-3 py-2 text-right font-semibold" data-testid={`hole-steer-${h.rank}`}>{steer(h.worstWheelSteerDeg)}</td>
-                {hasRoll ? <td className="px-3 py-2 text-right">{steer(h.rollWheelSteerDeg)}</td> : null}
-                {hasCombined ? <td className="px-3 py-2 text-right">{steer(h.combinedWheelSteerDeg)}</td> : null}
-                {extras(h.rankedWheelSteerDeg)}
-              </tr>
+              <Fragment key={`${h.rank}-${h.label}`}>
+                <tr className={`border-t border-graphite-200 ${tint}`} data-testid={`hole-row-${h.rank}`}>
+                  <td className={`${cell} font-sans font-semibold`}>
+                    {h.rank === 1 ? <StatusBadge tone="pass">1 best</StatusBadge> : <span className="figures">{h.rank}.</span>}{" "}
+                    <span data-testid={`hole-label-${h.rank}`}>{h.label}</span>
+                    {here ? <span className="ml-1"><StatusBadge tone="info">as fitted</StatusBadge></span> : null}
+                  </td>
+                  <td className={`${cell} text-right`}>{shownValue("length", h.z, units, L)}</td>
+                  <td className={`${cell} text-right font-semibold`} data-testid={`hole-ranked-${h.rank}`}>
+                    {h.rankedWheelSteerDeg === null ? "cannot reach" : steer(h.rankedWheelSteerDeg)}
+                    <span className="block text-xs font-normal text-graphite-700">{atWheelAndRim(h.rankedWheelSteerDeg)}</span>
+                  </td>
+                </tr>
+                <tr className={tint}>
+                  <td colSpan={3} className="px-2 pb-2 text-xs text-graphite-700">{detail(<span data-testid={`hole-steer-${h.rank}`}>{steer(h.worstWheelSteerDeg)}</span>, h.rollWheelSteerDeg, h.combinedWheelSteerDeg, bar)}</td>
+                </tr>
+              </Fragment>
             );
           })}
         </tbody>

@@ -1,7 +1,7 @@
 "use client";
 import Link from "next/link";
 import { useEffect, useState } from "react";
-import { toSteeringRequest, type SteeringFormState } from "@/components/calc/steering-request";
+import { captureMeta, toSteeringRequest, type SteeringFormState } from "@/components/calc/steering-request";
 
 type JobOption = { id: string; number: string; customerName: string };
 type GeometryStep = { id: string; key: string; title: string; version: number; signed: boolean; value: Record<string, unknown> | null };
@@ -43,7 +43,7 @@ export function SaveToJob({ state }: { state: SteeringFormState }) {
     if (!step) return setMessage({ ok: false, text: "Choose a job and one of its unsigned geometry steps." });
     setSaving(true);
     const current = (await json(`/api/jobs/${jobId}`)).body.steps?.find((s: GeometryStep) => s.id === step.id) as GeometryStep | undefined;
-    const value = { ...(current?.value ?? {}), [which]: { input: outcome.request, unit: state.units === "imperial" ? "in" : "mm", capturedAt: new Date().toISOString() } };
+    const value = { ...(current?.value ?? {}), [which]: { input: outcome.request, ...captureMeta(state), capturedAt: new Date().toISOString() } };
     const r = await json(`/api/jobs/${jobId}/steps/${step.id}/value`, { method: "PUT", body: JSON.stringify({ baseVersion: current?.version ?? step.version, value }) });
     setSaving(false);
     if (r.status === 200) setMessage({ ok: true, text: `Saved as the ${which} capture of “${step.title}”.` });

@@ -2,11 +2,9 @@
 import { useDeferredValue, useMemo, useState } from "react";
 import { Checkbox, FixList, Segmented, TextField } from "@/components/calc/fields";
 import { Figure } from "@/components/calc/figure";
-import { GUIDE_ORDER, GUIDE_TEXT, MeasureGuideDrawing } from "@/components/calc/measure-guide";
+import { EntryChoice, MeasureGuide } from "@/components/calc/measure-guide";
 import {
   convertSteeringForm,
-  emptyFloor,
-  floorFromPoints,
   plausibility,
   emptySteeringForm,
   exampleSteeringForm,
@@ -15,6 +13,7 @@ import {
   toSteeringRequest,
   type PointKey,
   type SteeringFormState,
+  withEntry,
 } from "@/components/calc/steering-request";
 import type { SteeringRequest } from "@/app/api/calc/steering/schema";
 import { figure, shown, symbolFor, type UnitSystem } from "@/components/calc/values";
@@ -105,7 +104,6 @@ export function SteeringCalculator({
     onStateChange?.(next);
   };
   const [touched, setTouched] = useState<ReadonlySet<string>>(() => new Set());
-  const [guideStep, setGuideStep] = useState(0);
   const [mode, setMode] = useState<SweepMode>("heave");
   const [travelAt, setTravelAt] = useState(0);
   const [rollAt, setRollAt] = useState(0);
@@ -207,7 +205,7 @@ export function SteeringCalculator({
           </div>
         ) : null}
         {ok && pose ? (
-          <div className="grid items-start gap-4 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]" data-testid="steer-side-by-side">
+          <div className="grid items-start gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]" data-testid="steer-side-by-side">
             <div className="card min-w-0 space-y-3 p-4">
             <div className="flex flex-wrap items-center justify-between gap-2">
               <h3 className="font-bold">Front view at <span className="figures" data-testid="pose-label">{poseText}</span></h3>
@@ -322,102 +320,22 @@ export function SteeringCalculator({
               { value: "imperial", label: "in" },
             ]}
           />
-          <button type="button" className="btn btn-quiet" onClick={() => { setState(exampleSteeringForm(units)); setTouched(new Set()); }}>Load example</button>
-          <button type="button" className="btn btn-quiet" onClick={() => { setState(emptySteeringForm(units)); setTouched(new Set()); }}>Clear</button>
+          <button type="button" className="btn btn-quiet" onClick={() => { setState(withEntry(exampleSteeringForm(units), floorMode ? "floor" : "coordinates")); setTouched(new Set()); }}>Load example</button>
+          <button type="button" className="btn btn-quiet" onClick={() => { setState(emptySteeringForm(units, floorMode ? "floor" : "coordinates", state.drive)); setTouched(new Set()); }}>Clear</button>
           <p className="w-full text-sm text-graphite-700">
-            Front view from ahead of the vehicle, frame-fixed, at ride height: y across (+ to the right of the drawing), z up. Any datum will do if every point uses it.
+            {floorMode
+              ? "Measured at ride height on a level floor: each joint's height from the floor and its distance from the vehicle's centre line; candidate holes are heights from the floor on the end's own vertical line."
+              : "Front view from ahead of the vehicle, frame-fixed, at ride height: y across (+ to the right of the drawing), z up. Any datum will do if every point uses it."}{" "}
             Fractions and units are read too: <span className="figures">3 1/4&quot;</span>, <span className="figures">82,5 mm</span>.
           </p>
         </div>
 
         <div className="card space-y-3 p-4">
-          <Segmented
-            legend="Enter the joints as"
-            testId="steer-entry"
-            value={floorMode ? "floor" : "coordinates"}
-            onChange={(entry) =>
-              update((s) => ({ ...s, entry, drive: s.drive ?? "lhd", floor: s.floor ?? (entry === "floor" ? emptyFloor() : undefined) }))
-            }
-            options={[
-              { value: "floor", label: "Floor and centre line" },
-              { value: "coordinates", label: "Coordinates" },
-            ]}
-          />
-          {floorMode ? (
-            <Segmented
-              legend="The vehicle is"
-              testId="steer-drive"
-              value={state.drive ?? "lhd"}
-              onChange={(drive) => update((s) => ({ ...s, drive }))}
-              options={[
-                { value: "lhd", label: "Left-hand drive" },
-                { value: "rhd", label: "Right-hand drive" },
-              ]}
-            />
-          ) : null}
-          {floorMode ? null : (
-            <button type="button" className="btn btn-quiet" onClick={() => update((s) => ({ ...s, entry: "floor", drive: s.drive ?? "lhd", floor: floorFromPoints(s, s.drive ?? "lhd") }))}>
-              Copy these points into the floor guide
-            </button>
-          )}
+          <EntryChoice state={state} onState={(next) => update(() => next)} />
         </div>
 
         {floorMode && state.floor ? (
-          <fieldset className="card space-y-3 p-4" data-testid="measure-guide">
-            <legend className="px-1 text-lg font-bold">Measuring guide</legend>
-            {(() => {
-              const key = GUIDE_ORDER[Math.min(guideStep, GUIDE_ORDER.length - 1)]!;
-              const f = state.floor[key];
-              const text = GUIDE_TEXT[key];
-              const setF = (patch: Partial<typeof f>) => update((s) => ({ ...s, floor: { ...s.floor!, [key]: { ...s.floor![key], ...patch } } }));
-              return (
-                <div className="space-y-3">
-                  <p className="text-sm font-semibold text-graphite-700" data-testid="guide-step">Point {guideStep + 1} of {GUIDE_ORDER.length}</p>
-                  <h4 className="text-lg font-bold" data-testid="guide-title">{text.title}</h4>
-                  <MeasureGuideDrawing point={key} />
-                  <p className="text-sm text-graphite-950">{text.what}</p>
-                  <p className="text-sm text-graphite-700">{text.tape} Vehicle at ride height on a level floor, wheels straight ahead. Any mix of units reads: <span className="figures">12 3/8 in</span>, <span className="figures">12-3/8&quot;</span>, <span className="figures">314 mm</span>.</p>
-                  <div className="grid grid-cols-2 gap-x-3">
-                    {lengthField(`floor.${key}.height`, "Height from the floor", f.height, (v) => setF({ height: v }), { signed: false })}
-                    {lengthField(`floor.${key}.distance`, "From the centre line", f.distance, (v) => setF({ distance: v }), { signed: false })}
-                  </div>
-                  <Segmented
-                    legend="On the"
-                    testId={`st-floor-${key}-side`}
-                    value={f.side}
-                    onChange={(side) => setF({ side })}
-                    options={[
-                      { value: "driver", label: "driver's side" },
-                      { value: "passenger", label: "passenger side" },
-                    ]}
-                  />
-                  <div className="flex flex-wrap gap-2">
-                    <button type="button" className="btn btn-quiet" data-testid="guide-back" disabled={guideStep === 0} onClick={() => setGuideStep((i) => Math.max(0, i - 1))}>
-                      <span aria-hidden="true">◀</span> Back
-                    </button>
-                    <button type="button" className="btn btn-primary" data-testid="guide-next" disabled={guideStep >= GUIDE_ORDER.length - 1} onClick={() => setGuideStep((i) => Math.min(GUIDE_ORDER.length - 1, i + 1))}>
-                      Next point <span aria-hidden="true">▶</span>
-                    </button>
-                  </div>
-                  <ol className="grid gap-1 text-sm" aria-label="Points measured">
-                    {GUIDE_ORDER.map((k, i) => {
-                      const done = state.floor![k].height.trim() !== "" && state.floor![k].distance.trim() !== "";
-                      return (
-                        <li key={k}>
-                          <button type="button" className={`flex min-h-11 w-full items-center gap-2 rounded-md px-2 text-left ${i === guideStep ? "bg-graphite-100 font-bold" : ""}`} onClick={() => setGuideStep(i)}>
-                            <span aria-hidden="true">{done ? "●" : "○"}</span>
-                            {POINT_LABELS[k]}
-                            <span className="figures ml-auto text-graphite-700">{done ? `${state.floor![k].height} up · ${state.floor![k].distance} ${state.floor![k].side === "driver" ? "driver" : "passenger"}` : "to measure"}</span>
-                          </button>
-                        </li>
-                      );
-                    })}
-                  </ol>
-                  {lengthField("axleWidth", "Axle width (optional)", state.axleWidth ?? "", (v) => update((s) => ({ ...s, axleWidth: v })), { signed: false, hint: "wheel-mount face to face, for the length check" })}
-                </div>
-              );
-            })()}
-          </fieldset>
+          <MeasureGuide floor={state.floor} state={state} onState={(next) => update(() => next)} lengthField={lengthField} />
         ) : null}
 
         {floorMode ? null : (

@@ -134,7 +134,7 @@ export function SteeringDiagram({
   const width0 = b.maxY - b.minY;
   const pad = Math.max(60, width0 * 0.07);
   // Room on the right for the hole labels, which are written beside the bracket.
-  const padRight = pad + (holes.length ? Math.max(120, width0 * 0.16) : 0);
+  const padRight = pad + (holes.length ? Math.max(160, width0 * 0.24) : 0);
   let minZ = b.minZ - pad;
   let maxZ = b.maxZ + pad + 40;
   const width = width0 + pad + padRight;
@@ -146,7 +146,9 @@ export function SteeringDiagram({
     maxZ += grow;
   }
   const height = maxZ - minZ;
-  const k = width / 820; // mm per CSS pixel at an 820 px wide drawing: sizes text and marks
+  // mm per CSS pixel at a 640 px wide drawing (about what it gets beside the ranking, tablet to desktop): sizes
+  // text and marks so the labels stay readable there.
+  const k = width / 640;
   const font = 14 * k;
 
   const at = pose.carry;
@@ -231,20 +233,6 @@ export function SteeringDiagram({
         })}
       </g>
 
-      {/* The best height: a cross in a square, with its words, so it reads without colour. */}
-      {opt
-        ? (() => {
-            const q = optOnAxle ? at(opt) : opt;
-            const r = 8 * k;
-            return (
-              <g data-testid="diagram-optimum">
-                <rect x={q.y - r} y={-q.z - r} width={2 * r} height={2 * r} fill="#f1f6cf" stroke={INK} strokeWidth={2} vectorEffect="non-scaling-stroke" />
-                <path d={`M${q.y - r} ${-q.z - r} L${q.y + r} ${-q.z + r} M${q.y + r} ${-q.z - r} L${q.y - r} ${-q.z + r}`} stroke={INK} strokeWidth={1.5} vectorEffect="non-scaling-stroke" />
-                {label({ y: q.y - 14 * k, z: q.z }, `drill here ${shown("length", opt.z, units, { metric: 1, imperial: 2 })}`, 4, "end", true)}
-              </g>
-            );
-          })()
-        : null}
 
       <FrameMount at={F} k={k} id="frame-end" />
       <FrameMount at={P} k={k} id="pitman-end" />
@@ -261,6 +249,21 @@ export function SteeringDiagram({
       {/* Where the axle carries the arm end (ring) and where the drag link holds it (dot): the gap is the error. */}
       {moved ? <circle data-testid="arm-carried" cx={Krigid.y} cy={-Krigid.z} r={9 * k} fill="none" stroke={INK} strokeWidth={1.5} strokeDasharray="3 2" vectorEffect="non-scaling-stroke" /> : null}
       {pivot(K1, "arm-end", true)}
+
+      {/* The best height: a cross in a square, with its words, so it reads without colour; drawn over the links so they never hide it. */}
+      {opt
+        ? (() => {
+            const q = optOnAxle ? at(opt) : opt;
+            const r = 8 * k;
+            return (
+              <g data-testid="diagram-optimum">
+                <rect x={q.y - r} y={-q.z - r} width={2 * r} height={2 * r} fill="#f1f6cf" stroke={INK} strokeWidth={2} vectorEffect="non-scaling-stroke" />
+                <path d={`M${q.y - r} ${-q.z - r} L${q.y + r} ${-q.z + r} M${q.y + r} ${-q.z - r} L${q.y - r} ${-q.z + r}`} stroke={INK} strokeWidth={1.5} vectorEffect="non-scaling-stroke" />
+                {label({ y: q.y - 14 * k, z: q.z }, `drill here ${shown("length", opt.z, units, { metric: 1, imperial: 2 })}`, 4, "end", true)}
+              </g>
+            );
+          })()
+        : null}
 
       {label(F, "frame end", -44, "middle")}
       {label(P, "pitman arm", 26, "middle")}
