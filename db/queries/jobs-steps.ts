@@ -22,7 +22,8 @@ import { parseValue } from "@/lib/jobs/values";
 import type { Step, WELD_PROCESSES } from "@/lib/procedures/schema";
 
 type WeldProcess = (typeof WELD_PROCESSES)[number];
-import type { WeldPassBody } from "@/lib/jobs/schemas";
+import type { HandOver, WeldPassBody } from "@/lib/jobs/schemas";
+import { signerFor, tabletHolder } from "./jobs-handover";
 import { checkPassAgainstWps, passHeatInput } from "@/lib/welding";
 import { appendSignOff, assertJobOpen, guarded, loadRecord, logActivity, refreshJobState, type Exec } from "./jobs-core";
 import { mailJointReady } from "./jobs-welds";
@@ -205,7 +206,9 @@ export async function verifyPinLogged(ctx: ShopContext, jobId: string, stepId: s
   }
 }
 
-export async function signStep(ctx: ShopContext, jobId: string, stepId: string, body: { pin: string; baseVersion: number }) {
+export async function signStep(holder: ShopContext, jobId: string, stepId: string, body: { pin: string; baseVersion: number; handOver?: HandOver }) {
+  // On a hand-over the inspector signs on the holder's tablet: every check and the PIN are the inspector's.
+  const ctx = await signerFor(holder, body.handOver);
   const pre = await loadRecord(db(), ctx, jobId);
   checkSignable(pre, findStep(pre, stepId), ctx, body.baseVersion);
   await verifyPinLogged(ctx, jobId, stepId, body.pin);
@@ -228,10 +231,11 @@ export async function signStep(ctx: ShopContext, jobId: string, stepId: string, 
           actorId: ctx.userId,
           action: "step.signed",
           stepId,
-          detail: { signOffId: so.id, meaning: plan.meaning, role: plan.role, contentHash: hash, acceptedUnder: plan.acceptedUnder, ...(round ? { round } : {}) },
+          detail: { signOffId: so.id, meaning: plan.meaning, role: plan.role, contentHash: hash, acceptedUnder: plan.acceptedUnder, ...(round ? { round } : {}), ...tabletHolder(holder, ctx) },
         });
         await refreshJobState(tx, ctx.shopId, jobId, ctx.userId);
-        const after = await loadRecord(tx, ctx, jobId);
+        // The answer goes back to the tablet, so it is the holder's view of the record.
+        const after = await loadRecord(tx, holder, jobId);
         return { record: after, signOffId: so.id };
       }),
     "This step was signed a moment ago by someone else.",
