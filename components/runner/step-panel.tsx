@@ -243,7 +243,7 @@ export function StepPanel({ record, step, nav }: { record: JobRecord; step: Step
             {step.spec.instructions ? <Markdown source={step.spec.instructions} className="mt-2 text-lg text-graphite-950" /> : null}
           </div>
         </div>
-      ) : step.spec.instructions ? (
+      ) : step.spec.instructions && step.kind !== "weld" ? (
         <Markdown source={step.spec.instructions} className="text-lg text-graphite-950" testId="instructions" />
       ) : null}
 
@@ -274,6 +274,9 @@ export function StepPanel({ record, step, nav }: { record: JobRecord; step: Step
       ) : null}
 
       {kindControls()}
+
+      {/* A weld step opens on its pass form; what the procedure says about the joint follows it. */}
+      {step.kind === "weld" && step.spec.instructions ? <Markdown source={step.spec.instructions} className="text-lg text-graphite-950" testId="instructions" /> : null}
 
       {step.kind === "geometry" ? <SafetyNote /> : null}
 
