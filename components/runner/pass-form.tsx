@@ -248,6 +248,11 @@ export function PassForm({ record, step, wps, qualification }: { record: JobReco
             ) : (
               <p className="text-graphite-800">Heat input shows once {missing.filter((m) => m !== "filler lot" && m !== "measured preheat").join(", ") || "the figures"} {missing.length === 1 ? "is" : "are"} in.</p>
             )}
+            {wps && check && !flagged.length ? (
+              <span data-testid="wps-check" data-verdict={check.ok ? "pass" : "idle"}>
+                <Pill tone={check.ok ? "pass" : "idle"}>{check.ok ? `Within ${wps.reference} revision ${wps.number}` : `Checked against ${wps.reference} revision ${wps.number}`}</Pill>
+              </span>
+            ) : null}
             <button type="button" className="btn btn-quiet min-h-12 text-sm" aria-expanded={details} onClick={() => setDetails((d) => !d)} data-testid="heat-details-toggle">{details ? "Hide details" : "Details"}</button>
           </div>
           {details ? (

@@ -12,6 +12,7 @@ import { apiJson, ApiError } from "./api";
 import { PassForm } from "./pass-form";
 import { PinDialog } from "./pin-dialog";
 import { RebaseWeldMap } from "./rebase-weld-map";
+import { RepairForm } from "./repair-form";
 import { useSetRecord } from "./use-job";
 import { Pill } from "./verdict";
 import { coverageOf, failedMessages, HotWorkNote, InspectionResult, JointStatePill, PassCard, PerformedLine, QualificationBox, roundName, roundTone, type Weld, WpsPanel, wpsOf } from "./weld-parts";
@@ -41,6 +42,8 @@ export function WeldControl({ record, step, jobOpen }: { record: JobRecord; step
   const mayRecord = jobOpen && roundOpen && !step.lockedBy && isWelder;
   const allPasses = record.passes.filter((p) => p.stepId === step.id);
   const current = allPasses.filter((p) => p.round === joint.round && !p.removed);
+  // A repair round opens on the record of how the rejected weld was removed.
+  const needsRepair = joint.state === "repair" && !joint.rounds[joint.round - 2]?.inspection?.repair;
   const preheat = governingPreheat(spec.minPreheatC, wps?.ranges.preheatMinC);
 
   const strike = async (passId: string) => {
@@ -106,7 +109,8 @@ export function WeldControl({ record, step, jobOpen }: { record: JobRecord; step
   return (
     <div className="space-y-4">
       {qualification && !qualification.ok && roundOpen && jobOpen ? <QualificationBox qualification={qualification} /> : null}
-      {mayRecord ? <PassForm key={`${step.id}:${joint.round}`} record={record} step={step} wps={wps} qualification={qualification} /> : null}
+      {mayRecord && needsRepair ? <RepairForm record={record} step={step} /> : null}
+      {mayRecord && !needsRepair ? <PassForm key={`${step.id}:${joint.round}`} record={record} step={step} wps={wps} qualification={qualification} /> : null}
       {error ? <p className="field-error" role="alert">{error}</p> : null}
       <dl className="grid grid-cols-2 gap-2 rounded-lg border-2 border-graphite-700 bg-white p-3 sm:grid-cols-4" data-testid="joint-spec">
         {[

@@ -24,6 +24,7 @@ export const ITEM_LABELS: Record<VisualItem, string> = {
   spatter: "Spatter",
 };
 
+const REPAIR_WORDS = { grinding: "ground out", "air-arc-gouging": "air-arc gouged", machining: "machined out", other: "removed" } as const;
 const utc = (iso: string) => `${iso.slice(0, 16).replace("T", " ")} UTC`;
 export const roundName = (n: number) => (n > 1 ? `Repair round ${n}` : "Round 1");
 
@@ -239,6 +240,11 @@ export function InspectionResult({ inspection, photos }: { inspection: Inspectio
         </ul>
       ) : null}
       {inspection.notes ? <p className="mt-1 text-graphite-950"><strong>Notes:</strong> {inspection.notes}</p> : null}
+      {inspection.repair ? (
+        <p className="mt-1 text-graphite-950" data-testid="round-repair">
+          <strong>Repair:</strong> {REPAIR_WORDS[inspection.repair.method]}{inspection.repair.methodNote ? ` (${inspection.repair.methodNote})` : ""}, <span className="figures">{inspection.repair.depthMm} mm</span> deep over <span className="figures">{inspection.repair.lengthMm} mm</span>, recorded by {inspection.repair.recordedBy.name}, {utc(inspection.repair.recordedAt)}
+        </p>
+      ) : null}
       {shots.length ? (
         <ul className="mt-2 flex flex-wrap gap-2" aria-label="Inspection photos">
           {shots.map((p) => (

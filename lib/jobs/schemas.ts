@@ -188,3 +188,16 @@ export const inspectionSchema = z
   })
   .strict();
 export type InspectionBody = z.output<typeof inspectionSchema>;
+
+// How a rejected weld was removed before its repair round: method, depth and length removed (mm), a photo.
+export const repairSchema = z
+  .object({
+    method: z.enum(["grinding", "air-arc-gouging", "machining", "other"], { message: "Choose how the weld was removed." }),
+    methodNote: optionalText(500, "The note on the method"),
+    depthMm: z.number({ message: "Depth removed is a number in mm." }).positive("Depth removed is above 0 mm.").max(100, "Depth removed is at most 100 mm."),
+    lengthMm: z.number({ message: "Length removed is a number in mm." }).positive("Length removed is above 0 mm.").max(100_000, "Length removed is at most 100 m."),
+    photoId: z.uuid("Take a photo of the prepared groove."),
+  })
+  .strict()
+  .refine((r) => r.method !== "other" || r.methodNote.length >= 3, { message: "Say which method was used.", path: ["methodNote"] });
+export type RepairBody = z.output<typeof repairSchema>;
