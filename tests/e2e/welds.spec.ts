@@ -237,7 +237,21 @@ test("a joint is welded, rejected for undercut, repaired in round 2 and accepted
   await expect(welder.getByTestId("round-1").getByTestId("round-inspection")).toContainText("Rejected");
   // A closed round's pass stays on the record: no strike-out for it.
   await expect(welder.getByTestId("round-1").getByRole("button", { name: "Strike out" })).toHaveCount(0);
+  // The repair round opens on how the weld was removed: no pass form until the repair record is in.
+  await expect(welder.getByTestId("new-pass")).toHaveCount(0);
+  const repairForm = welder.getByTestId("repair-form");
+  await repairForm.getByTestId("repair-submit").click();
+  await expect(repairForm).toContainText("Choose how the weld was removed.");
+  await repairForm.getByTestId("repair-method-grinding").click();
+  await repairForm.getByLabel("Depth removed (mm)").fill("1.5");
+  await repairForm.getByLabel("Length removed (mm)").fill("60");
+  await repairForm.getByTestId("repair-photo").setInputFiles(FIXTURE);
+  await expect(repairForm.getByRole("img")).toBeVisible();
+  await repairForm.getByTestId("repair-submit").click();
+  await expect(welder.getByTestId("round-1").getByTestId("round-repair")).toContainText("ground out, 1.5 mm deep over 60 mm");
   await expect(welder.getByTestId("new-pass")).toContainText("Record pass 2 (repair round 2)");
+  // The job's filler lot is remembered from its last pass.
+  await expect(welder.getByLabel(/Filler lot/)).toHaveValue("L-2291");
   await recordGoodPass(welder, "L-2291");
   await expect(welder.getByTestId("round-2").getByTestId("pass-2")).toContainText("19 V · 140 A");
   await expect(welder.getByTestId("sign-step")).toHaveText("Sign round 2");
