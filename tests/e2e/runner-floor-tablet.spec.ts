@@ -144,7 +144,7 @@ test("the sign action of a caution, a measurement and a weld step is on screen, 
   await expect(page.getByRole("heading", { name: /Weld joint W1/ })).toBeVisible();
   await onScreenUnscrolled(page, "sign-step");
   await expect(page.getByTestId("sign-step")).toHaveText("Sign round 1");
-  await expect(page.getByTestId("governing-preheat")).toContainText("Preheat at least 10 °C");
+  await expect(page.getByTestId("governing-preheat")).toContainText("Preheat at least 10.0 °C from the procedure and the WPS");
   await padType(page, "pass-volts", "19");
   await padType(page, "pass-amps", "140");
   await padType(page, "pass-speed", "300");

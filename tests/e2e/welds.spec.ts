@@ -163,7 +163,7 @@ test("a joint is welded, rejected for undercut, repaired in round 2 and accepted
   // Too cold for the WPS and the joint: blocked before anything is sent.
   await padType(welder, "pass-preheat", "5");
   await expect(welder.getByTestId("preheat-block")).toContainText("Preheat below the minimum: do not weld");
-  await expect(welder.getByTestId("preheat-block")).toContainText("needs at least 10 °C (from the procedure and the WPS)");
+  await expect(welder.getByTestId("preheat-block")).toContainText("needs at least 10.0 °C (from the procedure and the WPS)");
   await expect(welder.getByTestId("record-pass")).toBeDisabled();
   // Current above the WPS: recordable, but flagged.
   await padType(welder, "pass-amps", "180");

@@ -319,7 +319,7 @@ describe("inspection rounds: reject, repair, accept", () => {
     expect(chain).toBe(5); // round 1, its rejection, round 2, its acceptance, the hold
     const token = await tokenOf(jobId);
     expect((await api(`/api/verify/${token}`)).json.integrity).toMatchObject({ intact: true, entries: 5 });
-  });
+  }, 90_000);
 
   it("the demo's repaired job: W2 rejected for undercut, repaired, accepted; released with its materials, intact", async () => {
     const id = await withDb(async (c) => (await c.query(`select j.id from job j join shop s on s.id = j.shop_id where s.slug = 'iron-gully' and j.axle_tag = 'AX-0533'`)).rows[0]?.id as string | undefined);
