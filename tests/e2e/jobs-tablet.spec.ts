@@ -97,8 +97,10 @@ test("a welder completes a section with a caution, a measurement and a photo, th
   // Photo straight from the camera input, with its upload and thumbnail.
   await expect(page.getByRole("heading", { name: /Photo of the fit-up/ })).toBeVisible();
   await expect(page.getByTestId("photos-camera")).toHaveAttribute("capture", "environment");
+  await page.getByTestId("photos-caption").fill("Fit-up, tape at the upper toe");
   await page.getByTestId("photos-camera").setInputFiles(FIXTURE);
   await expect(page.getByTestId("photo-thumb")).toHaveCount(1);
+  await expect(page.getByTestId("photo-thumb").getByTestId("photo-caption")).toHaveText("Fit-up, tape at the upper toe");
   await expect(page.getByTestId("photos-count")).toHaveText("1 of 1");
   await signWithPin(page);
   await expect(page.getByTestId("runner-progress")).toHaveText("3 of 4 signed");
