@@ -203,13 +203,13 @@ export function PassForm({ record, step, wps, qualification }: { record: JobReco
       </div>
       <div className="mt-1 grid gap-3 md:grid-cols-[minmax(0,1fr)_15rem]">
         <div className="min-w-0">
-          <div className="grid grid-cols-2 gap-x-3 sm:grid-cols-4">
+          <div className="grid grid-cols-2 gap-x-3 lg:grid-cols-4">
             {field("volts", "Volts", "V")}
             {field("amps", "Amps", "A")}
             {field("preheat", "Preheat measured", symbolOf("temperature", tempUnit), cold ? `Below ${show("temperature", preheat.minC, tempUnit)}: heat it` : null)}
             {field("interpass", "Interpass", symbolOf("temperature", tempUnit))}
           </div>
-          <div className="grid grid-cols-2 gap-x-3 sm:grid-cols-4">
+          <div className="grid grid-cols-2 gap-x-3 lg:grid-cols-4">
             <div role="radiogroup" aria-label="Travel measured by" className="grid content-start gap-1 pt-5">
               {([["speed", "Travel speed"], ["bead", "Bead + arc time"]] as const).map(([k, label]) => (
                 <button key={k} type="button" role="radio" aria-checked={travel === k} onClick={() => { setTravel(k); setActive(k === "speed" ? "speed" : "bead"); }} className={`${radio(travel === k)} min-h-12 px-2 text-sm`} data-testid={`travel-${k}`}>
