@@ -21,14 +21,17 @@ import { coverageOf, ITEM_LABELS, PassCard, wpsOf, type Weld } from "./weld-cont
 type BoolKey = "cracks" | "fusionComplete" | "cratersFilled" | "profileAcceptable" | "arcStrikes" | "spatterAcceptable";
 type NumKey = "materialThicknessMm" | "specifiedLegMm" | "weldLengthMm" | "measuredLegMm" | "undersizeLengthMm" | "undercutDepthMm" | "undercutAccumulatedMm" | "porosityMm" | "porosity12Mm";
 
+// Every row reads the same way: a statement of the sound weld, and Pass when it holds. "good" is the
+// observation's value when the row passes (no crack is good; full fusion is good).
 const QUESTIONS: Record<BoolKey, string> = {
-  cracks: "Any crack in the weld or beside it?",
-  fusionComplete: "Fused to the base metal and between passes all along?",
-  cratersFilled: "Craters filled to the full cross section?",
-  profileAcceptable: "Profile acceptable (convexity, toes, no overlap)?",
-  arcStrikes: "Arc strikes outside the weld?",
-  spatterAcceptable: "Spatter cleaned off as required?",
+  cracks: "No crack in the weld or beside it",
+  fusionComplete: "Fused to the base metal and between passes all along",
+  cratersFilled: "Craters filled to the full cross section",
+  profileAcceptable: "Profile acceptable (convexity, toes, no overlap)",
+  arcStrikes: "No arc strikes outside the weld",
+  spatterAcceptable: "Spatter cleaned off as required",
 };
+const GOOD: Record<BoolKey, boolean> = { cracks: false, fusionComplete: true, cratersFilled: true, profileAcceptable: true, arcStrikes: false, spatterAcceptable: true };
 
 const NUM: Record<NumKey, { label: string; short: string; min: number; max: number; above?: boolean }> = {
   materialThicknessMm: { label: "Material thickness (thinner part)", short: "material thickness", min: 0, max: 300, above: true },
@@ -292,19 +295,22 @@ export function InspectionPanel({ record, step }: { record: JobRecord; step: Ste
                       <fieldset key={b} className="mt-1" data-testid={`obs-${b}`}>
                         <legend className="mb-1 text-graphite-950">{QUESTIONS[b]}</legend>
                         <div role="radiogroup" aria-label={QUESTIONS[b]} className="grid grid-cols-2 gap-2">
-                          {[true, false].map((v) => (
-                            <button
-                              key={String(v)}
-                              type="button"
-                              role="radio"
-                              aria-checked={answers[b] === v}
-                              onClick={() => setAnswers((all) => ({ ...all, [b]: v }))}
-                              className={`min-h-14 rounded-lg border-2 text-lg font-bold ${answers[b] === v ? "border-graphite-950 bg-graphite-900 text-white" : "border-graphite-400 bg-white text-graphite-950"}`}
-                            >
-                              {answers[b] === v ? <span aria-hidden="true">● </span> : <span aria-hidden="true">○ </span>}
-                              {v ? "Yes" : "No"}
-                            </button>
-                          ))}
+                          {[true, false].map((passes) => {
+                            const v = passes ? GOOD[b] : !GOOD[b];
+                            return (
+                              <button
+                                key={String(passes)}
+                                type="button"
+                                role="radio"
+                                aria-checked={answers[b] === v}
+                                onClick={() => setAnswers((all) => ({ ...all, [b]: v }))}
+                                className={`min-h-14 rounded-lg border-2 text-lg font-bold ${answers[b] === v ? "border-graphite-950 bg-graphite-900 text-white" : "border-graphite-400 bg-white text-graphite-950"}`}
+                              >
+                                {answers[b] === v ? <span aria-hidden="true">● </span> : <span aria-hidden="true">○ </span>}
+                                {passes ? "Pass" : "Fail"}
+                              </button>
+                            );
+                          })}
                         </div>
                       </fieldset>
                     ))}
@@ -317,7 +323,7 @@ export function InspectionPanel({ record, step }: { record: JobRecord; step: Ste
                     ) : null}
                   </div>
                   <div className="rounded-md bg-graphite-50 p-2 text-sm" data-testid={`item-${r.item}-result`} data-verdict={isReady ? (result.ok ? "pass" : "fail") : "idle"}>
-                    {isReady ? <Pill tone={result.ok ? "pass" : "fail"}>{result.ok ? "Meets the limit" : "Outside the limit"}</Pill> : <Pill tone="idle">To enter</Pill>}
+                    {isReady ? <Pill tone={result.ok ? "pass" : "fail"}>{result.ok ? "Pass" : "Fail: outside the limit"}</Pill> : <Pill tone="idle">To enter</Pill>}
                     {isReady ? <p className="mt-1 text-graphite-950"><strong>Found:</strong> {result.measured}</p> : null}
                     <p className="mt-1 text-graphite-950" data-testid={`item-${r.item}-limit`}>
                       <strong>Limit:</strong> {needsThickness ? "enter the material thickness to see it." : result.limit}

@@ -7,7 +7,7 @@ import { PHOTO_MAX_BYTES } from "@/lib/jobs/schemas";
 import { ApiError, newKey, uploadPhoto } from "./api";
 import { useSetRecord } from "./use-job";
 
-type Upload = { key: string; name: string; file: File; preview: string; progress: number; status: "uploading" | "failed"; error?: string };
+type Upload = { key: string; name: string; file: File; preview: string; progress: number; status: "uploading" | "failed"; error?: string; caption: string };
 
 export function PhotoStrip({
   jobId,
@@ -36,6 +36,8 @@ export function PhotoStrip({
 }) {
   const setRecord = useSetRecord(jobId);
   const [uploads, setUploads] = useState<Upload[]>([]);
+  // A caption typed before the photo is taken goes with it; it is shown under the photo after.
+  const [caption, setCaption] = useState("");
 
   const send = async (u: Upload) => {
     setUploads((all) => all.map((x) => (x.key === u.key ? { ...x, status: "uploading", progress: 0, error: undefined } : x)));
@@ -43,6 +45,7 @@ export function PhotoStrip({
       const result = await uploadPhoto(jobId, u.file, {
         idempotencyKey: u.key,
         stepId,
+        ...(u.caption ? { caption: u.caption } : {}),
         onProgress: (p) => setUploads((all) => all.map((x) => (x.key === u.key ? { ...x, progress: p } : x))),
       });
       setRecord(result.record);
@@ -56,7 +59,7 @@ export function PhotoStrip({
 
   const onFiles = (files: FileList | null) => {
     for (const file of Array.from(files ?? [])) {
-      const u: Upload = { key: newKey(), name: file.name, file, preview: URL.createObjectURL(file), progress: 0, status: "uploading" };
+      const u: Upload = { key: newKey(), name: file.name, file, preview: URL.createObjectURL(file), progress: 0, status: "uploading", caption: caption.trim() };
       if (file.size > PHOTO_MAX_BYTES) {
         // Said here at once rather than after sending 20 MB over the shop's wifi; the server refuses it too.
         setUploads((all) => [...all, { ...u, status: "failed", error: `This file is ${(file.size / 1024 / 1024).toFixed(1)} MB; photos are at most 20 MB.` }]);
@@ -65,6 +68,7 @@ export function PhotoStrip({
       setUploads((all) => [...all, u]);
       void send(u);
     }
+    setCaption("");
   };
 
   const count = photos.length;
@@ -92,6 +96,12 @@ export function PhotoStrip({
           </div>
         ) : null}
       </div>
+      {canAdd ? (
+        <div className="max-w-xl">
+          <label htmlFor={`${testId}-caption`} className="field-label">Caption for the next photo (optional)</label>
+          <input id={`${testId}-caption`} className="field-input min-h-12" value={caption} maxLength={200} onChange={(e) => setCaption(e.target.value)} placeholder="e.g. fit-up, tape at the upper toe" data-testid={`${testId}-caption`} />
+        </div>
+      ) : null}
       {uploads.length ? (
         <ul className="space-y-2" aria-label="Uploads">
           {uploads.map((u) => (
@@ -138,6 +148,7 @@ export function PhotoStrip({
                     <img src={p.thumbUrl} alt={`Photo by ${p.uploadedBy.name}, ${p.uploadedAt.slice(11, 16)} UTC`} className="aspect-square w-full object-cover" />
                   </a>
                 )}
+                {p.caption ? <p className="text-sm font-semibold text-graphite-950" data-testid="photo-caption">{p.caption}</p> : null}
                 {canRemove && onRemove && !selectable ? (
                   <button type="button" className="btn btn-quiet min-h-12 w-full" onClick={() => void onRemove(p.id)}>Remove photo</button>
                 ) : null}

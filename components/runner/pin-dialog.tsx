@@ -16,6 +16,7 @@ export function PinDialog({
   onSign,
   onClose,
   testId = "pin-dialog",
+  pinLabel = "Your signing PIN",
 }: {
   title: string;
   signAs: SignAs;
@@ -24,6 +25,7 @@ export function PinDialog({
   onSign: (pin: string) => Promise<void>;
   onClose: () => void;
   testId?: string;
+  pinLabel?: string;
 }) {
   const [pin, setPin] = useState("");
   const [error, setError] = useState<string | null>(null);
@@ -77,7 +79,7 @@ export function PinDialog({
             void submit();
           }}
         >
-          <label htmlFor="signing-pin" className="block font-semibold text-graphite-950">Your signing PIN</label>
+          <label htmlFor="signing-pin" className="block font-semibold text-graphite-950">{pinLabel}</label>
           <input
             ref={input}
             id="signing-pin"

@@ -5,7 +5,8 @@
 import Link from "next/link";
 import { useEffect, useMemo, useState } from "react";
 import { StatusBadge } from "@/components/status-badge";
-import { JOB_STATE_LABELS } from "@/lib/jobs/labels";
+import { JOB_STATE_LABELS, type Tone } from "@/lib/jobs/labels";
+import { waitingHold } from "@/lib/jobs/state";
 import type { JobRecord, StepView } from "@/lib/jobs/record";
 import { kindGlyph } from "./glyph";
 import { StepPanel } from "./step-panel";
@@ -21,9 +22,22 @@ function stepStatus(s: StepView, record: JobRecord): { word: string; shape: stri
     return { word, shape: "◐", cls: "text-[#5c3d00]" };
   }
   if (s.signed) return { word: "Signed", shape: "●", cls: "text-[#1f3305]" };
+  if (s.kind === "hold" && waitingHold(record.steps)?.id === s.id) return { word: "Waiting for inspection", shape: "◐", cls: "text-[#5c3d00]" };
   if (record.nonconformances.some((n) => n.stepId === s.id && !n.disposition)) return { word: "NC open", shape: "✕", cls: "text-[#8a1d15]" };
   if (s.lockedBy) return { word: "Locked", shape: "▲", cls: "text-[#5c3d00]" };
   return { word: "Open", shape: "○", cls: "text-graphite-900" };
+}
+
+/**
+ * The job's state for the runner's header. A job stopped only because a hold point waits for its
+ * inspector says "Waiting for inspection" (◆), not "On hold" (▲), which is kept for an open nonconformance.
+ */
+export function shownJobState(record: JobRecord): { label: string; tone: Tone } {
+  const base = JOB_STATE_LABELS[record.job.status];
+  if (record.job.status === "released" || record.job.status === "void") return base;
+  const ncOpen = record.nonconformances.some((n) => !n.disposition);
+  if (!ncOpen && record.job.status === "on_hold" && waitingHold(record.steps)) return { label: "Waiting for inspection", tone: "info" };
+  return base;
 }
 
 function firstToDo(record: JobRecord): StepView | undefined {
@@ -57,6 +71,16 @@ export function Runner({ jobId, initial, initialStepKey }: { jobId: string; init
     }
   };
 
+  // After a sign-off the runner moves on by itself to the next step that is open to work (no second Next).
+  const advance = (after: JobRecord, from: number) => {
+    const open = (s: StepView) => !s.signed && !s.lockedBy && !(s.joint && s.joint.state === "awaiting_inspection");
+    const next = after.steps.slice(from + 1).find(open) ?? after.steps.find(open);
+    if (next && next.id !== after.steps[from]?.id) {
+      setStepId(next.id);
+      window.scrollTo({ top: 0 });
+    }
+  };
+
   const sections = useMemo(() => {
     const out: { key: string; title: string; steps: StepView[] }[] = [];
     for (const s of record.steps) {
@@ -70,7 +94,7 @@ export function Runner({ jobId, initial, initialStepKey }: { jobId: string; init
   const signed = record.steps.filter((s) => s.signed).length;
   const total = record.steps.length;
   const pct = total ? Math.round((signed / total) * 100) : 0;
-  const state = JOB_STATE_LABELS[record.job.status];
+  const state = shownJobState(record);
 
   return (
     <div className="flex min-h-screen flex-col" data-testid="runner">
@@ -147,16 +171,11 @@ export function Runner({ jobId, initial, initialStepKey }: { jobId: string; init
       ) : null}
 
       <main className="mx-auto w-full max-w-6xl flex-1 px-4 pb-32 pt-4">
-        {step ? <StepPanel key={step.id} record={record} step={step} onNext={() => go(index + 1)} isLast={index === total - 1} /> : <p>This job has no steps.</p>}
+        {step ? (
+          <StepPanel key={step.id} record={record} step={step} nav={{ index, total, onPrev: () => go(index - 1), onNext: () => go(index + 1), onSigned: (after) => advance(after, index) }} />
+        ) : <p>This job has no steps.</p>}
       </main>
 
-      <nav aria-label="Steps" className="fixed inset-x-0 bottom-0 z-30 border-t-4 border-graphite-950 bg-white">
-        <div className="mx-auto flex max-w-6xl items-center gap-3 px-4 py-2">
-          <button type="button" className="btn btn-quiet min-h-14 flex-1 text-lg" onClick={() => go(index - 1)} disabled={index === 0} data-testid="prev-step">← Previous</button>
-          <span className="figures shrink-0 text-center font-semibold">{index + 1} / {total}</span>
-          <button type="button" className="btn btn-quiet min-h-14 flex-1 text-lg" onClick={() => go(index + 1)} disabled={index >= total - 1} data-testid="next-step">Next →</button>
-        </div>
-      </nav>
     </div>
   );
 }

@@ -25,6 +25,8 @@ import { useSetRecord } from "./use-job";
 import { useStepDraft, type SaveState } from "./use-step-draft";
 import { Pill, VerdictBox } from "./verdict";
 import { InspectionPanel } from "./inspection-panel";
+import { HandOverPicker } from "./hand-over";
+import { StepBar } from "./step-bar";
 import { JointStatePill, WeldControl } from "./weld-control";
 
 const SAVE_WORDS: Record<SaveState, { text: string; tone: "pass" | "wait" | "fail" | "idle" }> = {
@@ -48,7 +50,9 @@ function weldSignOffSummary(s: SignOffView, joint: JointView): string {
   return `${name}: ${count} pass${count === 1 ? "" : "es"} welded`;
 }
 
-export function StepPanel({ record, step, onNext, isLast }: { record: JobRecord; step: StepView; onNext: () => void; isLast: boolean }) {
+export type StepNav = { index: number; total: number; onPrev: () => void; onNext: () => void; onSigned: (record: JobRecord) => void };
+
+export function StepPanel({ record, step, nav }: { record: JobRecord; step: StepView; nav: StepNav }) {
   const jobId = record.job.id;
   const viewer = record.viewer;
   const setRecord = useSetRecord(jobId);
@@ -64,6 +68,11 @@ export function StepPanel({ record, step, onNext, isLast }: { record: JobRecord;
   const [amendValue, setAmendValue] = useState<Record<string, unknown>>(step.effectiveValue ?? {});
   const [reason, setReason] = useState("");
   const [signing, setSigning] = useState<null | "sign" | "amend">(null);
+  // The inspector the tablet is handed to for one sign-off; cleared when it is signed or cancelled.
+  const [handOver, setHandOver] = useState<null | "choose" | { membershipId: string; name: string }>(null);
+  // "Saved" is said only after something was saved on this visit, never before anything is typed.
+  const [touched, setTouched] = useState(false);
+  if (!touched && draft.state !== "saved") setTouched(true);
   const [raising, setRaising] = useState(false);
   const [message, setMessage] = useState<string | null>(null);
 
@@ -86,6 +95,9 @@ export function StepPanel({ record, step, onNext, isLast }: { record: JobRecord;
   const mayRaise = jobOpen && (viewer.roles.includes("welder") || viewer.roles.includes("inspector") || viewer.roles.includes("lead")) && !openNc;
   const outOfTolerance = live.verdict === "fail";
   // Cutting, grinding and welding sections carry the hot-work reminder on every step, not only at the weld.
+  // A hold point or inspector-signed step on a tablet whose holder may not sign it: an inspector signs on it.
+  const inspectorStep = step.meaning === "inspected" && !joint;
+  const mayHandOver = jobOpen && inspectorStep && !step.signed && !step.lockedBy && (!mayWork || !!step.signBlock) && live.canSign;
   const hotSection = record.steps.some((s) => s.sectionKey === step.sectionKey && (s.kind === "weld" || (s.spec.kind === "caution" && s.spec.hazards.includes("fire-watch"))));
 
   const removePhoto = async (photoId: string) => {
@@ -231,7 +243,7 @@ export function StepPanel({ record, step, onNext, isLast }: { record: JobRecord;
             {step.spec.instructions ? <Markdown source={step.spec.instructions} className="mt-2 text-lg text-graphite-950" /> : null}
           </div>
         </div>
-      ) : step.spec.instructions ? (
+      ) : step.spec.instructions && step.kind !== "weld" ? (
         <Markdown source={step.spec.instructions} className="text-lg text-graphite-950" testId="instructions" />
       ) : null}
 
@@ -262,6 +274,9 @@ export function StepPanel({ record, step, onNext, isLast }: { record: JobRecord;
       ) : null}
 
       {kindControls()}
+
+      {/* A weld step opens on its pass form; what the procedure says about the joint follows it. */}
+      {step.kind === "weld" && step.spec.instructions ? <Markdown source={step.spec.instructions} className="text-lg text-graphite-950" testId="instructions" /> : null}
 
       {step.kind === "geometry" ? <SafetyNote /> : null}
 
@@ -327,7 +342,7 @@ export function StepPanel({ record, step, onNext, isLast }: { record: JobRecord;
         <section className="space-y-3 rounded-xl border-2 border-graphite-300 bg-white p-4" aria-labelledby="sign-h" data-testid="sign-panel">
           <div className="flex flex-wrap items-center justify-between gap-2">
             <h3 id="sign-h" className="text-lg font-bold">Sign-off</h3>
-            {editable ? <Pill tone={save.tone} testId="save-state">{save.text}</Pill> : null}
+            {editable && touched ? <Pill tone={save.tone} testId="save-state">{save.text}</Pill> : null}
           </div>
           {draft.problem ? <p className="field-error" data-testid="save-problem">{draft.problem}</p> : null}
           {live.canSign && !step.signBlock ? (
@@ -340,28 +355,49 @@ export function StepPanel({ record, step, onNext, isLast }: { record: JobRecord;
             </VerdictBox>
           )}
           {message ? <p className="field-error" data-testid="sign-message">{message}</p> : null}
-          <div className="flex flex-wrap gap-3">
-            {jobOpen && !step.lockedBy && !step.signBlock ? (
-              <button type="button" className="btn btn-primary min-h-16 flex-1 px-6 text-xl disabled:border-graphite-400 disabled:bg-graphite-100 disabled:text-graphite-800 disabled:opacity-100" disabled={!live.canSign || draft.state === "conflict"} onClick={() => void startSign()} data-testid="sign-step">
-                {meaningLabel}
-              </button>
-            ) : null}
-            {outOfTolerance && mayRaise && !raising ? (
-              <button type="button" className="btn btn-danger min-h-16 flex-1 px-6 text-xl" onClick={() => setRaising(true)} data-testid="raise-nc">
-                ✕ Raise nonconformance
-              </button>
-            ) : null}
-          </div>
           {!outOfTolerance && mayRaise && !raising && !step.lockedBy ? (
             <button type="button" className="btn btn-quiet min-h-12" onClick={() => setRaising(true)} data-testid="report-problem">Report a problem (nonconformance)</button>
           ) : null}
         </section>
       )}
 
-      {step.signed ? (
-        <button type="button" className="btn btn-primary min-h-16 w-full text-xl" onClick={onNext} data-testid="next-after-sign" disabled={isLast}>
-          {isLast ? "Last step" : "Next step →"}
-        </button>
+
+      <StepBar index={nav.index} total={nav.total} onPrev={nav.onPrev} onNext={nav.onNext}>
+        {step.signed ? (
+          <p className="flex min-h-14 flex-1 items-center justify-center rounded-md border-2 border-[#2f4a08] bg-[#eef5d6] px-3 text-lg font-bold text-[#1f3305]" data-testid="bar-signed"><span aria-hidden="true">●&nbsp;</span>Signed</p>
+        ) : mayHandOver ? (
+          <button type="button" className="btn btn-primary min-h-14 flex-1 px-4 text-lg" onClick={() => setHandOver("choose")} data-testid="handover-start">
+            Hand to an inspector to sign
+          </button>
+        ) : jobOpen && !step.lockedBy && !step.signBlock && !(joint && joint.state === "awaiting_inspection") && !amending ? (
+          <button type="button" className="btn btn-primary min-h-14 flex-1 px-4 text-lg disabled:border-graphite-400 disabled:bg-graphite-100 disabled:text-graphite-800 disabled:opacity-100" disabled={!live.canSign || draft.state === "conflict"} onClick={() => void startSign()} data-testid="sign-step">
+            {meaningLabel}
+          </button>
+        ) : null}
+        {!step.signed && outOfTolerance && mayRaise && !raising ? (
+          <button type="button" className="btn btn-danger min-h-14 flex-1 px-4 text-lg" onClick={() => setRaising(true)} data-testid="raise-nc">
+            ✕ Raise nonconformance
+          </button>
+        ) : null}
+      </StepBar>
+
+      {handOver === "choose" ? <HandOverPicker jobId={jobId} onClose={() => setHandOver(null)} onChoose={(p) => setHandOver(p)} /> : null}
+      {handOver && handOver !== "choose" ? (
+        <PinDialog
+          title={`${handOver.name} signs: “${step.title}”`}
+          signAs={{ name: handOver.name, role: "inspector", meaning: step.meaning }}
+          pinLabel={`${handOver.name}'s signing PIN`}
+          testId="handover-pin"
+          onClose={() => setHandOver(null)}
+          onSign={async (pin) => {
+            const result = await apiJson<{ record: JobRecord }>(`/api/jobs/${jobId}/steps/${step.id}/sign`, { body: { pin, baseVersion: draft.baseVersion(), handOver: { membershipId: handOver.membershipId } } });
+            setHandOver(null);
+            setRecord(result.record);
+            nav.onSigned(result.record);
+          }}
+        >
+          <p className="mt-3 font-semibold text-graphite-950">Signed under {handOver.name}&rsquo;s name; the tablet goes back to {viewer.name} after this one sign-off.</p>
+        </PinDialog>
       ) : null}
 
       {signing ? (
@@ -378,6 +414,9 @@ export function StepPanel({ record, step, onNext, isLast }: { record: JobRecord;
             } else {
               const result = await apiJson<{ record: JobRecord }>(`/api/jobs/${jobId}/steps/${step.id}/sign`, { body: { pin, baseVersion: draft.baseVersion() } });
               setRecord(result.record);
+              setSigning(null);
+              nav.onSigned(result.record);
+              return;
             }
             setSigning(null);
           }}

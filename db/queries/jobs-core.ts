@@ -17,6 +17,7 @@ import {
   signOff,
   user,
   weldInspection,
+  weldRepair,
   weldPass,
   weldPassOverride,
   wps,
@@ -29,7 +30,7 @@ import { AppError } from "@/lib/errors";
 import { assembleRecord, type JobParts, type Viewer } from "@/lib/jobs/assemble";
 import type { JobStateName } from "@/lib/jobs/labels";
 import type { JobWeldMap } from "@/lib/weld-map";
-import type { InspectionView, WeldMapView, JobRecord, MaterialView, NonconformanceView, PassView, PhotoView, QualificationSummary, SignOffView, WpsSummary } from "@/lib/jobs/record";
+import type { InspectionView, RepairView, WeldMapView, JobRecord, MaterialView, NonconformanceView, PassView, PhotoView, QualificationSummary, SignOffView, WpsSummary } from "@/lib/jobs/record";
 import { toWpsRanges } from "@/app/api/wps/schema";
 import { currentQualification, type DbOrTx } from "@/db/queries/qualifications";
 import { deriveJobState } from "@/lib/jobs/state";
@@ -352,7 +353,35 @@ async function loadInspections(x: Exec, jobId: string): Promise<InspectionView[]
     .innerJoin(user, eq(user.id, weldInspection.inspectorId))
     .where(eq(weldInspection.jobId, jobId))
     .orderBy(asc(weldInspection.inspectedAt), asc(weldInspection.round));
-  return rows.map(({ inspectorId, inspectorName, inspectedAt, ...r }) => ({ ...r, inspector: { id: inspectorId, name: inspectorName }, inspectedAt: inspectedAt.toISOString() }));
+  const repairs = await loadRepairs(x, jobId);
+  // A rejected round's inspection carries the repair record of the round after it.
+  return rows.map(({ inspectorId, inspectorName, inspectedAt, ...r }) => ({
+    ...r,
+    inspector: { id: inspectorId, name: inspectorName },
+    inspectedAt: inspectedAt.toISOString(),
+    repair: repairs.find((p) => p.stepId === r.stepId && p.round === r.round + 1)?.view ?? null,
+  }));
+}
+
+async function loadRepairs(x: Exec, jobId: string): Promise<{ stepId: string; round: number; view: RepairView }[]> {
+  const rows = await x
+    .select({
+      id: weldRepair.id,
+      stepId: weldRepair.stepId,
+      round: weldRepair.round,
+      method: weldRepair.method,
+      methodNote: weldRepair.methodNote,
+      depthMm: weldRepair.depthMm,
+      lengthMm: weldRepair.lengthMm,
+      photoId: weldRepair.photoId,
+      byId: weldRepair.recordedBy,
+      byName: user.name,
+      recordedAt: weldRepair.recordedAt,
+    })
+    .from(weldRepair)
+    .innerJoin(user, eq(user.id, weldRepair.recordedBy))
+    .where(eq(weldRepair.jobId, jobId));
+  return rows.map(({ stepId, byId, byName, recordedAt, ...r }) => ({ stepId, round: r.round, view: { ...r, recordedBy: { id: byId, name: byName }, recordedAt: recordedAt.toISOString() } }));
 }
 
 async function loadMaterials(x: Exec, jobId: string): Promise<MaterialView[]> {

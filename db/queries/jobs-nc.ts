@@ -11,6 +11,9 @@ import { recordContent } from "@/lib/jobs/content";
 import { contentHash } from "@/lib/jobs/hash";
 import { DISPOSITION_LABELS, type DispositionName } from "@/lib/jobs/labels";
 import { verifySigningPin } from "@/db/queries/people";
+import { shopLeads } from "@/db/queries/qualifications";
+import { env } from "@/lib/env";
+import { mailHtml, sendMail } from "@/lib/mail";
 import { appendSignOff, assertJobOpen, guarded, loadRecord, logActivity, refreshJobState } from "./jobs-core";
 import { findStep } from "./jobs-steps";
 
@@ -19,7 +22,7 @@ export async function raiseNonconformance(
   jobId: string,
   input: { stepId: string; description: string; proposedDisposition: DispositionName; photoIds: string[] },
 ) {
-  return guarded(
+  const result = await guarded(
     () =>
       db().transaction(async (tx) => {
         const record = await loadRecord(tx, ctx, jobId, { lock: true });
@@ -73,6 +76,34 @@ export async function raiseNonconformance(
       }),
     "A nonconformance was raised on this step a moment ago.",
   );
+  // The shop's leads hear of it at once; a mail that fails never undoes the record (sent after commit).
+  await mailNcRaised(ctx, result.record, result.number, input);
+  return result;
+}
+
+async function mailNcRaised(ctx: ShopContext, record: Awaited<ReturnType<typeof loadRecord>>, number: number, input: { stepId: string; description: string; proposedDisposition: DispositionName }) {
+  try {
+    const step = record.steps.find((s) => s.id === input.stepId);
+    const url = `${env().APP_URL.replace(/\/$/, "")}/run/${record.job.id}?step=${encodeURIComponent(step?.key ?? "")}`;
+    for (const lead of await shopLeads(ctx.shopId)) {
+      if (lead.userId === ctx.userId) continue;
+      const lines = [
+        `Hello ${lead.name},`,
+        `${ctx.legalName} raised NC-${number} on job ${record.job.number}, axle ${record.job.axleTag}, at "${step?.title ?? "a step"}".`,
+        `What is wrong: ${input.description}`,
+        `Proposed disposition: ${DISPOSITION_LABELS[input.proposedDisposition].label}. The job is on hold until a lead or inspector who did not raise it signs the disposition.`,
+      ];
+      await sendMail({
+        shopId: ctx.shopId,
+        to: lead.email,
+        subject: `NC-${number} raised on ${record.job.number}`,
+        text: `${lines.join("\n\n")}\n\nOpen it: ${url}\n`,
+        html: mailHtml(`NC-${number} raised on ${record.job.number}`, lines, { label: "Open the step", url }),
+      });
+    }
+  } catch (error) {
+    console.error("[mail] nonconformance raised:", (error as Error).message);
+  }
 }
 
 export async function dispositionNonconformance(ctx: ShopContext, jobId: string, ncId: string, input: { disposition: DispositionName; notes: string; pin: string }) {

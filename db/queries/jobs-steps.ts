@@ -3,7 +3,7 @@ import "server-only";
 // amending a signed step. Every sign-off of the product is appended in this module or in jobs.ts
 // (release) and jobs-nc.ts (disposition) — the places a record chain hooks in.
 import { and, eq, sql } from "drizzle-orm";
-import { jobStep, weldPass, weldPassOverride } from "@/db/schema";
+import { jobStep, weldPass, weldPassOverride, weldRepair } from "@/db/schema";
 import { currentQualification, recordProcessUse } from "@/db/queries/qualifications";
 import { verifySigningPin } from "@/db/queries/people";
 import type { ShopContext } from "@/lib/auth/context";
@@ -22,7 +22,8 @@ import { parseValue } from "@/lib/jobs/values";
 import type { Step, WELD_PROCESSES } from "@/lib/procedures/schema";
 
 type WeldProcess = (typeof WELD_PROCESSES)[number];
-import type { WeldPassBody } from "@/lib/jobs/schemas";
+import type { HandOver, RepairBody, WeldPassBody } from "@/lib/jobs/schemas";
+import { signerFor, tabletHolder } from "./jobs-handover";
 import { checkPassAgainstWps, passHeatInput } from "@/lib/welding";
 import { appendSignOff, assertJobOpen, guarded, loadRecord, logActivity, refreshJobState, type Exec } from "./jobs-core";
 import { mailJointReady } from "./jobs-welds";
@@ -205,7 +206,9 @@ export async function verifyPinLogged(ctx: ShopContext, jobId: string, stepId: s
   }
 }
 
-export async function signStep(ctx: ShopContext, jobId: string, stepId: string, body: { pin: string; baseVersion: number }) {
+export async function signStep(holder: ShopContext, jobId: string, stepId: string, body: { pin: string; baseVersion: number; handOver?: HandOver }) {
+  // On a hand-over the inspector signs on the holder's tablet: every check and the PIN are the inspector's.
+  const ctx = await signerFor(holder, body.handOver);
   const pre = await loadRecord(db(), ctx, jobId);
   checkSignable(pre, findStep(pre, stepId), ctx, body.baseVersion);
   await verifyPinLogged(ctx, jobId, stepId, body.pin);
@@ -228,10 +231,11 @@ export async function signStep(ctx: ShopContext, jobId: string, stepId: string, 
           actorId: ctx.userId,
           action: "step.signed",
           stepId,
-          detail: { signOffId: so.id, meaning: plan.meaning, role: plan.role, contentHash: hash, acceptedUnder: plan.acceptedUnder, ...(round ? { round } : {}) },
+          detail: { signOffId: so.id, meaning: plan.meaning, role: plan.role, contentHash: hash, acceptedUnder: plan.acceptedUnder, ...(round ? { round } : {}), ...tabletHolder(holder, ctx) },
         });
         await refreshJobState(tx, ctx.shopId, jobId, ctx.userId);
-        const after = await loadRecord(tx, ctx, jobId);
+        // The answer goes back to the tablet, so it is the holder's view of the record.
+        const after = await loadRecord(tx, holder, jobId);
         return { record: after, signOffId: so.id };
       }),
     "This step was signed a moment ago by someone else.",
@@ -315,6 +319,54 @@ function assertRoundOpen(step: StepView) {
   return { spec, joint };
 }
 
+/** A repair round is welded only once the removal of the rejected weld is on the record. */
+function assertRepairRecorded(step: StepView) {
+  const { spec, joint } = jointOf(step);
+  if (joint.round < 2) return;
+  if (joint.rounds[joint.round - 2]?.inspection?.repair) return;
+  throw new AppError(
+    "unprocessable",
+    `Record how the rejected weld of joint ${spec.jointId} was removed (method, depth and length removed, a photo) before welding repair round ${joint.round}.`,
+    { repair: ["Record the repair first."] },
+  );
+}
+
+/** How the rejected weld was removed, once per repair round, before any of its passes. */
+export async function recordRepair(ctx: ShopContext, jobId: string, stepId: string, input: RepairBody) {
+  return guarded(
+    () =>
+      db().transaction(async (tx) => {
+        const record = await loadRecord(tx, ctx, jobId, { lock: true });
+        assertJobOpen(record);
+        const step = findStep(record, stepId);
+        assertUnlocked(step);
+        const { spec, joint } = assertRoundOpen(step);
+        if (!ctx.roles.includes("welder") && !ctx.roles.includes("lead")) throw new AppError("forbidden", "A welder or lead records how a weld was removed.");
+        if (joint.round < 2) throw new AppError("conflict", `Joint ${spec.jointId} was not rejected; there is no repair to record.`);
+        const rejected = joint.rounds[joint.round - 2]?.inspection;
+        if (rejected?.repair) throw new AppError("conflict", `The repair of joint ${spec.jointId} for round ${joint.round} is already recorded by ${rejected.repair.recordedBy.name}.`);
+        if (record.passes.some((p) => p.stepId === stepId && p.round === joint.round && !p.removed)) throw new AppError("conflict", `Repair round ${joint.round} already has passes.`);
+        const shot = record.photos.find((p) => p.id === input.photoId && !p.removed);
+        if (!shot) throw new AppError("unprocessable", "The photo of the prepared groove is not on this job.", { photoId: ["Take the photo on this job first."] });
+        await tx.insert(weldRepair).values({
+          shopId: ctx.shopId,
+          jobId,
+          stepId,
+          round: joint.round,
+          method: input.method,
+          methodNote: input.methodNote,
+          depthMm: input.depthMm,
+          lengthMm: input.lengthMm,
+          photoId: shot.id,
+          recordedBy: ctx.userId,
+        });
+        await logActivity(tx, { shopId: ctx.shopId, jobId, actorId: ctx.userId, action: "weld.repair", stepId, detail: { joint: spec.jointId, round: joint.round, method: input.method, depthMm: input.depthMm, lengthMm: input.lengthMm, photoId: shot.id } });
+        return { record: await loadRecord(tx, ctx, jobId) };
+      }),
+    "The repair of this round was recorded a moment ago.",
+  );
+}
+
 type PassFigures = {
   travelSpeedMmPerMin: number;
   arcEnergyKJPerMm: number;
@@ -375,6 +427,7 @@ export async function recordWeldPass(ctx: ShopContext, jobId: string, stepId: st
   assertUnlocked(step);
   const { spec } = assertRoundOpen(step);
   if (!ctx.roles.includes("welder")) throw new AppError("forbidden", "Only a welder records weld passes.");
+  assertRepairRecorded(step);
   if (input.preheatC < spec.minPreheatC) {
     throw new AppError(
       "unprocessable",

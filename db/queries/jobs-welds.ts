@@ -17,6 +17,7 @@ import { sendMail, mailHtml } from "@/lib/mail";
 import { contentHash } from "@/lib/seal";
 import { judgeVisual, visualCriteriaLabel, type VisualVerdict } from "@/lib/welding";
 import { appendSignOff, assertJobOpen, guarded, loadRecord, logActivity, refreshJobState } from "./jobs-core";
+import { signerFor, tabletHolder } from "./jobs-handover";
 import { findStep, verifyPinLogged } from "./jobs-steps";
 
 function weldStepOf(record: JobRecord, stepId: string): StepView & { joint: NonNullable<StepView["joint"]> } {
@@ -61,7 +62,9 @@ function checkInspectable(record: JobRecord, ctx: ShopContext, stepId: string, b
   return { step, verdict, photos };
 }
 
-export async function inspectJoint(ctx: ShopContext, jobId: string, stepId: string, body: InspectionBody) {
+export async function inspectJoint(holder: ShopContext, jobId: string, stepId: string, body: InspectionBody) {
+  // On a hand-over the inspector inspects on the holder's tablet: the checks and the PIN are the inspector's.
+  const ctx = await signerFor(holder, body.handOver);
   checkInspectable(await loadRecord(db(), ctx, jobId), ctx, stepId, body);
   await verifyPinLogged(ctx, jobId, stepId, body.pin);
   const result = await guarded(
@@ -123,10 +126,10 @@ export async function inspectJoint(ctx: ShopContext, jobId: string, stepId: stri
           actorId: ctx.userId,
           action: body.decision === "accepted" ? "weld.accepted" : "weld.rejected",
           stepId,
-          detail: { joint: joint.jointId, round: joint.round, criteria: body.criteria, signOffId: so.id, rejected: verdict.rejectedItems, notes: body.notes },
+          detail: { joint: joint.jointId, round: joint.round, criteria: body.criteria, signOffId: so.id, rejected: verdict.rejectedItems, notes: body.notes, ...tabletHolder(holder, ctx) },
         });
         await refreshJobState(tx, ctx.shopId, jobId, ctx.userId);
-        return { record: await loadRecord(tx, ctx, jobId), inspectionId: row!.id, verdict };
+        return { record: await loadRecord(tx, holder, jobId), inspectionId: row!.id, verdict };
       }),
     "This joint was inspected a moment ago by someone else.",
   );

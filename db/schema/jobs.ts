@@ -362,6 +362,35 @@ export const weldInspection = pgTable(
   ],
 );
 
+// How a rejected weld was taken out before its repair round is welded: method, how deep and how long the
+// removal went, and a photo of the prepared groove. One per repair round, written once.
+export const REPAIR_METHODS = ["grinding", "air-arc-gouging", "machining", "other"] as const;
+export type RepairMethod = (typeof REPAIR_METHODS)[number];
+
+export const weldRepair = pgTable(
+  "weld_repair",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    shopId: uuid("shop_id").notNull().references(() => shop.id),
+    jobId: uuid("job_id").notNull().references(() => job.id),
+    stepId: uuid("step_id").notNull().references(() => jobStep.id),
+    round: integer("round").notNull(),
+    method: text("method", { enum: REPAIR_METHODS }).notNull(),
+    methodNote: text("method_note").notNull().default(""),
+    depthMm: doublePrecision("depth_mm").notNull(),
+    lengthMm: doublePrecision("length_mm").notNull(),
+    photoId: uuid("photo_id").notNull().references(() => photo.id),
+    recordedBy: text("recorded_by").notNull().references(() => user.id),
+    recordedAt: timestamp("recorded_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    uniqueIndex("weld_repair_round_idx").on(t.stepId, t.round),
+    index("weld_repair_job_idx").on(t.jobId),
+    check("weld_repair_round", sql`${t.round} >= 2`),
+    check("weld_repair_sizes", sql`${t.depthMm} > 0 and ${t.lengthMm} > 0`),
+  ],
+);
+
 export const MATERIAL_KINDS = ["base", "filler", "other"] as const;
 export type MaterialKind = (typeof MATERIAL_KINDS)[number];
 

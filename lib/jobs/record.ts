@@ -90,6 +90,20 @@ export type InspectionView = {
   inspector: PersonRef;
   signOffId: string;
   inspectedAt: string;
+  /** after a rejection: how the defect was taken out before the repair round (round + 1) is welded */
+  repair?: RepairView | null;
+};
+
+export type RepairView = {
+  id: string;
+  round: number;
+  method: "grinding" | "air-arc-gouging" | "machining" | "other";
+  methodNote: string;
+  depthMm: number;
+  lengthMm: number;
+  photoId: string;
+  recordedBy: PersonRef;
+  recordedAt: string;
 };
 
 export type JointState = "welding" | "awaiting_inspection" | "repair" | "accepted";

@@ -59,7 +59,12 @@ export type ListJobsQuery = z.output<typeof listJobsQuerySchema>;
 
 export const saveValueSchema = z.object({ baseVersion: z.number().int().min(0), value: z.record(z.string(), z.unknown()) }).strict();
 
-export const signStepSchema = z.object({ pin: pinSchema, baseVersion: z.number().int().min(0) }).strict();
+// The welder's tablet handed to an inspector for one sign-off: the inspector is named by their membership
+// and the PIN sent is theirs.
+export const handOverSchema = z.object({ membershipId: z.uuid("Choose the inspector who signs.") }).strict();
+export type HandOver = z.output<typeof handOverSchema>;
+
+export const signStepSchema = z.object({ pin: pinSchema, baseVersion: z.number().int().min(0), handOver: handOverSchema.optional() }).strict();
 
 export const amendStepSchema = z
   .object({
@@ -179,6 +184,20 @@ export const inspectionSchema = z
     notes: z.string().trim().max(4000, "Notes are at most 4,000 characters.").default(""),
     photoIds: z.array(z.uuid()).min(1, "Take at least one photo of the joint as inspected.").max(12, "At most 12 photos."),
     pin: pinSchema,
+    handOver: handOverSchema.optional(),
   })
   .strict();
 export type InspectionBody = z.output<typeof inspectionSchema>;
+
+// How a rejected weld was removed before its repair round: method, depth and length removed (mm), a photo.
+export const repairSchema = z
+  .object({
+    method: z.enum(["grinding", "air-arc-gouging", "machining", "other"], { message: "Choose how the weld was removed." }),
+    methodNote: optionalText(500, "The note on the method"),
+    depthMm: z.number({ message: "Depth removed is a number in mm." }).positive("Depth removed is above 0 mm.").max(100, "Depth removed is at most 100 mm."),
+    lengthMm: z.number({ message: "Length removed is a number in mm." }).positive("Length removed is above 0 mm.").max(100_000, "Length removed is at most 100 m."),
+    photoId: z.uuid("Take a photo of the prepared groove."),
+  })
+  .strict()
+  .refine((r) => r.method !== "other" || r.methodNote.length >= 3, { message: "Say which method was used.", path: ["methodNote"] });
+export type RepairBody = z.output<typeof repairSchema>;

@@ -63,7 +63,6 @@ async function signWithPin(page: Page) {
   for (const d of DEMO_PIN) await dialog.getByTestId("pin-pad").getByRole("button", { name: d, exact: true }).click();
   await dialog.getByTestId("pin-submit").click();
   await expect(dialog).toBeHidden();
-  await expect(page.getByTestId("step-status")).toHaveText(/Signed/);
 }
 
 test("a welder completes a section with a caution, a measurement and a photo, then an out-of-tolerance gap raises a nonconformance", async ({ page }) => {
@@ -74,14 +73,17 @@ test("a welder completes a section with a caution, a measurement and a photo, th
   await expect(page.getByTestId("runner-job-number")).toHaveText(jobNumber);
   await expect(page.getByTestId("runner-progress")).toHaveText("0 of 4 signed");
 
-  // Caution: prominent, each hazard acknowledged by a tap, then signed.
+  // Caution: prominent, each hazard acknowledged by a tap, then signed. Nothing says "Saved" before a save.
   await expect(page.getByTestId("caution-banner")).toBeVisible();
+  await expect(page.getByTestId("save-state")).toHaveCount(0);
   await expect(page.getByTestId("sign-step")).toBeDisabled();
   await page.getByTestId("hazard-ppe").click();
   await page.getByTestId("hazard-fire-watch").click();
   await expect(page.getByTestId("save-state")).toHaveText(/Saved/);
   await signWithPin(page);
-  await page.getByTestId("next-after-sign").click();
+  // Signing moves on to the next open step by itself; there is no second Next button.
+  await expect(page.getByTestId("runner-progress")).toHaveText("1 of 4 signed");
+  await expect(page.getByTestId("next-after-sign")).toHaveCount(0);
 
   // Measurement on the pad with a live verdict.
   await expect(page.getByRole("heading", { name: /Hole centre height/ })).toBeVisible();
@@ -90,13 +92,15 @@ test("a welder completes a section with a caution, a measurement and a photo, th
   await expect(page.getByTestId("tolerance-verdict")).toHaveAttribute("data-verdict", "pass");
   await expect(page.getByTestId("save-state")).toHaveText(/Saved/);
   await signWithPin(page);
-  await page.getByTestId("next-after-sign").click();
+  await expect(page.getByTestId("runner-progress")).toHaveText("2 of 4 signed");
 
   // Photo straight from the camera input, with its upload and thumbnail.
   await expect(page.getByRole("heading", { name: /Photo of the fit-up/ })).toBeVisible();
   await expect(page.getByTestId("photos-camera")).toHaveAttribute("capture", "environment");
+  await page.getByTestId("photos-caption").fill("Fit-up, tape at the upper toe");
   await page.getByTestId("photos-camera").setInputFiles(FIXTURE);
   await expect(page.getByTestId("photo-thumb")).toHaveCount(1);
+  await expect(page.getByTestId("photo-thumb").getByTestId("photo-caption")).toHaveText("Fit-up, tape at the upper toe");
   await expect(page.getByTestId("photos-count")).toHaveText("1 of 1");
   await signWithPin(page);
   await expect(page.getByTestId("runner-progress")).toHaveText("3 of 4 signed");

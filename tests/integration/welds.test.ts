@@ -268,6 +268,23 @@ describe("inspection rounds: reject, repair, accept", () => {
     expect((await api(`/api/jobs/${jobId}/steps/${w1(r).id}/passes/${round1Pass.id}`, { session: welder, method: "DELETE" })).status).toBe(409);
     // Priya (welder and inspector) makes a repair pass, so she may not inspect it.
     await ensureQualified(lead, "welder2@irongully.example", "GMAW");
+    // No repair pass before the removal of the rejected weld is on the record (method, depth, length, photo).
+    const unprepared = await pass(welder2, r);
+    expect(unprepared.status, unprepared.text).toBe(422);
+    expect(unprepared.json.error.message).toMatch(/Record how the rejected weld of joint W1 was removed .* before welding repair round 2/);
+    const groove = await uploadFixture(welder2, jobId);
+    expect(groove.status, groove.text).toBe(201);
+    const repairUrl = `/api/jobs/${jobId}/steps/${w1(r).id}/repairs`;
+    const noDepth = await api(repairUrl, { session: welder2, body: { method: "grinding", lengthMm: 60, photoId: groove.json.photoId } });
+    expect(noDepth.status).toBe(400);
+    expect(noDepth.json.error.fields.depthMm[0]).toMatch(/Depth removed/);
+    const otherUnsaid = await api(repairUrl, { session: welder2, body: { method: "other", depthMm: 1.5, lengthMm: 60, photoId: groove.json.photoId } });
+    expect(otherUnsaid.status).toBe(400);
+    const removed = await api(repairUrl, { session: welder2, body: { method: "grinding", depthMm: 1.5, lengthMm: 60, photoId: groove.json.photoId } });
+    expect(removed.status, removed.text).toBe(201);
+    const rejectedRound = w1(removed.json.record).joint.rounds[0].inspection;
+    expect(rejectedRound.repair).toMatchObject({ round: 2, method: "grinding", depthMm: 1.5, lengthMm: 60, photoId: groove.json.photoId, recordedBy: { name: expect.any(String) } });
+    expect((await api(repairUrl, { session: welder2, body: { method: "grinding", depthMm: 2, lengthMm: 60, photoId: groove.json.photoId } })).status).toBe(409);
     const repair = await pass(welder2, r);
     expect(repair.status, repair.text).toBe(201);
     expect(repair.json.record.passes.find((p: Rec) => p.id === repair.json.passId)).toMatchObject({ round: 2, passNumber: 2 });
@@ -302,7 +319,7 @@ describe("inspection rounds: reject, repair, accept", () => {
     expect(chain).toBe(5); // round 1, its rejection, round 2, its acceptance, the hold
     const token = await tokenOf(jobId);
     expect((await api(`/api/verify/${token}`)).json.integrity).toMatchObject({ intact: true, entries: 5 });
-  });
+  }, 90_000);
 
   it("the demo's repaired job: W2 rejected for undercut, repaired, accepted; released with its materials, intact", async () => {
     const id = await withDb(async (c) => (await c.query(`select j.id from job j join shop s on s.id = j.shop_id where s.slug = 'iron-gully' and j.axle_tag = 'AX-0533'`)).rows[0]?.id as string | undefined);
