@@ -1,5 +1,6 @@
 "use client";
 // One step of the checklist: what to do, its kind's controls, photos, the live verdict, and signing.
+import dynamic from "next/dynamic";
 import { useState } from "react";
 import { Markdown } from "@/lib/procedures/markdown-view";
 import { KIND_LABELS } from "@/lib/procedures/labels";
@@ -24,8 +25,10 @@ import { SignOffList } from "./sign-off-list";
 import { useSetRecord } from "./use-job";
 import { useStepDraft, type SaveState } from "./use-step-draft";
 import { Pill, VerdictBox } from "./verdict";
-import { InspectionPanel } from "./inspection-panel";
 import { JointStatePill, WeldControl } from "./weld-control";
+
+// The inspection form (and the zod check it runs) loads only when an inspection is open.
+const InspectionPanel = dynamic(() => import("./inspection-panel").then((m) => m.InspectionPanel));
 
 const SAVE_WORDS: Record<SaveState, { text: string; tone: "pass" | "wait" | "fail" | "idle" }> = {
   saved: { text: "Saved", tone: "pass" },
