@@ -14,9 +14,6 @@ import { measureBounds, measureVerdict, torqueVerdict } from "@/lib/jobs/toleran
 import { show, type PadQuantity } from "@/lib/jobs/units";
 import type { CautionValue, CheckValue, CoatingValue, GeometryValue, MeasureValue, TorqueValue } from "@/lib/jobs/values";
 import { apiJson, ApiError } from "./api";
-import { CoatingControl } from "./coating-control";
-import { GeometryControl } from "./geometry-control";
-import { NcCard, RaiseNcForm } from "./nc-panel";
 import { PhotoStrip } from "./photo-strip";
 import { PinDialog } from "./pin-dialog";
 import { boundsText, ReadingControl } from "./reading-control";
@@ -27,8 +24,13 @@ import { useStepDraft, type SaveState } from "./use-step-draft";
 import { Pill, VerdictBox } from "./verdict";
 import { JointStatePill, WeldControl } from "./weld-control";
 
-// The inspection form (and the zod check it runs) loads only when an inspection is open.
+// Controls of the rarer step kinds, the inspection form (with the zod check it runs) and the nonconformance
+// forms load when a step needs them, keeping the runner's first load light on a shop tablet.
 const InspectionPanel = dynamic(() => import("./inspection-panel").then((m) => m.InspectionPanel));
+const CoatingControl = dynamic(() => import("./coating-control").then((m) => m.CoatingControl));
+const GeometryControl = dynamic(() => import("./geometry-control").then((m) => m.GeometryControl));
+const NcCard = dynamic(() => import("./nc-panel").then((m) => m.NcCard));
+const RaiseNcForm = dynamic(() => import("./nc-panel").then((m) => m.RaiseNcForm));
 
 const SAVE_WORDS: Record<SaveState, { text: string; tone: "pass" | "wait" | "fail" | "idle" }> = {
   saved: { text: "Saved", tone: "pass" },

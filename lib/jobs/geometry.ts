@@ -26,10 +26,7 @@ export function geometryResults(input: SteeringInput): GeometryResults {
   };
 }
 
-/** Which captures a geometry step needs before it can be signed. */
-export function requiredCaptures(capture: "before" | "after" | "both"): ("before" | "after")[] {
-  return capture === "both" ? ["before", "after"] : [capture];
-}
+export { requiredCaptures } from "./captures";
 
 type CaptureLike = { input: SteeringInput; results: GeometryResults };
 
