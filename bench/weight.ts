@@ -10,8 +10,10 @@
 import { chromium, type Browser, type BrowserContext, type Page } from "@playwright/test";
 import pg from "pg";
 
-/** Gzip JS transferred on first load, in KB (1 KB = 1,000 bytes). */
+/** Gzip JS transferred on first load, in KB (1 KB = 1,000 bytes): the targets. */
 export const BUDGET_KB = { runner: 170, verify: 150 } as const;
+/** What the runner is held to until it meets its target: no heavier than it is now, so nothing creeps back. */
+export const RUNNER_CEILING_KB = 200;
 
 const LAUNCH = {
   executablePath: "/usr/bin/chromium",
