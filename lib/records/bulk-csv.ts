@@ -7,6 +7,7 @@ import type { JobRecord, StepView } from "@/lib/jobs/record";
 import { measureBounds, measureVerdict, torqueBounds, torqueVerdict, type Bounds } from "@/lib/jobs/tolerance";
 import type { CautionValue, CheckValue, CoatingValue, GeometryValue, MeasureValue, TorqueValue } from "@/lib/jobs/values";
 import { QUANTITY_SYMBOLS } from "@/lib/procedures/labels";
+import type { WpsField } from "@/lib/welding/wps-check";
 import { csvField, csvRow } from "./csv";
 
 export const BULK_CSV_COLUMNS = [
@@ -25,6 +26,16 @@ export const BULK_CSV_COLUMNS = [
   "signer",
   "signed_at",
 ] as const;
+
+const FIELD_WORDS: Record<WpsField, string> = {
+  volts: "volts",
+  amps: "amps",
+  travelSpeed: "travel speed",
+  heatInput: "heat input",
+  preheat: "preheat",
+  interpass: "interpass",
+  position: "position",
+};
 
 type Row = Record<(typeof BULK_CSV_COLUMNS)[number], string | number | null>;
 
@@ -121,10 +132,23 @@ export function jobCsvRows(record: JobRecord): Row[] {
         for (const p of passes) {
           const who = { signer: p.welder.name, signed_at: p.recordedAt };
           const label = `joint ${spec.jointId} round ${p.round} pass ${p.passNumber}${p.removed ? " (struck out)" : ""}`;
-          for (const f of p.findings) {
-            if (f.value === null && !f.shown) continue;
-            const limit = limitText({ low: f.min ?? null, high: f.max ?? null });
-            add(`${label}: ${f.field}`, f.value ?? f.shown ?? "", f.unit, limit, f.ok ? "pass" : "fail", who);
+          // The pass's own figures always; the WPS range and verdict where the pass was checked against one.
+          // Heat input as the WPS check took it (arc energy or heat input, by the WPS); else the pass's own.
+          const heat = p.findings.find((x) => x.field === "heatInput")?.value ?? p.heatInputKJPerMm;
+          const figures: [WpsField, number | string | null, string][] = [
+            ["volts", p.volts, "V"],
+            ["amps", p.amps, "A"],
+            ["travelSpeed", p.travelSpeedMmPerMin, "mm/min"],
+            ["heatInput", heat, "kJ/mm"],
+            ["preheat", p.preheatC, "°C"],
+            ["interpass", p.interpassC, "°C"],
+            ["position", p.position, ""],
+          ];
+          for (const [field, value, unit] of figures) {
+            if (value === null || value === "") continue;
+            const f = p.findings.find((x) => x.field === field);
+            const limit = f && f.field !== "position" ? limitText({ low: f.min ?? null, high: f.max ?? null }) : "";
+            add(`${label}: ${FIELD_WORDS[field]}`, value, unit, limit, f ? (f.ok ? "pass" : "fail") : "", who);
           }
         }
         if (passes.length === 0) add(s.title, "", "", "", "no passes");
