@@ -45,9 +45,10 @@ function figure(n: number | null | undefined): string {
   return String(Math.round(n * 10_000) / 10_000);
 }
 
-/** "98–102", "≥ 6", "≤ 1.5" (inclusive limits, in the row's unit). */
+/** "between 98 and 102", "≥ 6", "≤ 1.5" (inclusive limits, in the row's unit). Words first, so a negative
+ * lower limit never opens the cell with a minus a spreadsheet would take for a formula. */
 export function limitText(b: Bounds): string {
-  if (b.low !== null && b.high !== null) return `${figure(b.low)}–${figure(b.high)}`;
+  if (b.low !== null && b.high !== null) return `between ${figure(b.low)} and ${figure(b.high)}`;
   if (b.low !== null) return `≥ ${figure(b.low)}`;
   if (b.high !== null) return `≤ ${figure(b.high)}`;
   return "";

@@ -53,7 +53,7 @@ describe("GET /api/records/export.csv", () => {
       const [low, high] =
         t.type === "plusMinus" ? [(s.spec.nominal ?? 0) - t.minus!, (s.spec.nominal ?? 0) + t.plus!] : t.type === "range" ? [t.min!, t.max!] : t.type === "min" ? [t.min!, null] : [null, t.max!];
       const shown = (n: number) => String(Math.round(n * 10_000) / 10_000);
-      expect(row!.limit).toBe(low !== null && high !== null ? `${shown(low)}–${shown(high)}` : low !== null ? `≥ ${shown(low)}` : `≤ ${shown(high!)}`);
+      expect(row!.limit).toBe(low !== null && high !== null ? `between ${shown(low)} and ${shown(high)}` : low !== null ? `≥ ${shown(low)}` : `≤ ${shown(high!)}`);
       const inside = (low === null || reading >= low) && (high === null || reading <= high);
       expect(row!.verdict).toBe(inside ? "pass" : "fail");
       expect(row!.signer).not.toBe("");
@@ -77,7 +77,7 @@ describe("GET /api/records/export.csv", () => {
         expect(Number(row!.value)).toBeCloseTo(p.volts, 4);
         expect(row!.unit).toBe("V");
         expect(row!.verdict).toBe(volts.ok ? "pass" : "fail");
-        if (volts.min !== undefined && volts.max !== undefined) expect(row!.limit).toBe(`${volts.min}–${volts.max}`);
+        if (volts.min !== undefined && volts.max !== undefined) expect(row!.limit).toBe(`between ${volts.min} and ${volts.max}`);
         expect(row!.signer).toBe(p.welder.name);
         expect(row!.signed_at).toBe(p.recordedAt);
         checked++;

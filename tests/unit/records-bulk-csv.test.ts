@@ -7,7 +7,8 @@ import { repairedJobRecord, WELDER } from "@/tests/fixtures/pdf/job-record-fixtu
 
 describe("bulk CSV rows", () => {
   it("writes limits as inclusive ranges or one-sided bounds", () => {
-    expect(limitText({ low: 98, high: 102 })).toBe("98–102");
+    expect(limitText({ low: 98, high: 102 })).toBe("between 98 and 102");
+    expect(limitText({ low: -1, high: 1 })).toBe("between -1 and 1");
     expect(limitText({ low: 6, high: null })).toBe("≥ 6");
     expect(limitText({ low: null, high: 1.5 })).toBe("≤ 1.5");
     expect(limitText({ low: null, high: null })).toBe("");
@@ -16,9 +17,9 @@ describe("bulk CSV rows", () => {
   it("gives each pass figure a row: value, unit, the WPS range and the verdict from the pass's own check", () => {
     const rows = jobCsvRows(repairedJobRecord());
     const amps2 = rows.find((r) => r.item === "joint W1 round 1 pass 2: amps")!;
-    expect(amps2).toMatchObject({ value: 250, unit: "A", limit: "120–240", verdict: "fail", signer: WELDER.name, step_key: "w-1", job_number: "J-0042" });
+    expect(amps2).toMatchObject({ value: 250, unit: "A", limit: "between 120 and 240", verdict: "fail", signer: WELDER.name, step_key: "w-1", job_number: "J-0042" });
     const amps1 = rows.find((r) => r.item === "joint W1 round 1 pass 1: amps")!;
-    expect(amps1).toMatchObject({ value: 180, limit: "120–240", verdict: "pass" });
+    expect(amps1).toMatchObject({ value: 180, limit: "between 120 and 240", verdict: "pass" });
     // Struck out passes stay, marked as such.
     expect(rows.some((r) => r.item === "joint W1 round 1 pass 3 (struck out): volts")).toBe(true);
     // A pass stored without findings still shows its figures, with no limit or verdict it was never given.
@@ -31,6 +32,6 @@ describe("bulk CSV rows", () => {
     const parsed = parse(text, { columns: true }) as Record<string, string>[];
     expect(Object.keys(parsed[0]!)).toEqual([...BULK_CSV_COLUMNS]);
     expect(parsed.length).toBe(jobCsvRows(repairedJobRecord()).length);
-    expect(parsed.find((r) => r.item === "joint W1 round 1 pass 2: amps")).toMatchObject({ value: "250", unit: "A", limit: "120–240", verdict: "fail" });
+    expect(parsed.find((r) => r.item === "joint W1 round 1 pass 2: amps")).toMatchObject({ value: "250", unit: "A", limit: "between 120 and 240", verdict: "fail" });
   });
 });
