@@ -1,4 +1,4 @@
-import { expect, signInAs, test } from "./support";
+import { expect, signedInAs, signInAs, test } from "./support";
 
 test("a lead invites a welder; the mail shows in the local mailbox; the invitee joins and lands on the bench", async ({ page, browser }) => {
   const email = `fitter-${Date.now()}@irongully.example`;
@@ -60,32 +60,34 @@ test("a person sets their signing PIN; a short PIN is refused beside the field",
 });
 
 test("a lead changes two people's roles with one Save; the last lead cannot drop the lead role", async ({ page }) => {
-  await signInAs(page, "lead@irongully.example");
+  await signedInAs(page, "lead@irongully.example");
   await page.goto("/people");
   const table = page.getByTestId("members-table");
   const row = (email: string) => table.getByRole("row").filter({ hasText: email });
   const save = page.getByRole("button", { name: "Save roles" });
   await expect(save).toHaveCount(1);
 
-  await row("welder2@irongully.example").getByLabel("Inspector", { exact: true }).check();
-  await row("auditor@irongully.example").getByLabel("Welder", { exact: true }).check();
+  await row("welder@irongully.example").getByLabel("Auditor", { exact: true }).check();
+  await row("inspector@irongully.example").getByLabel("Auditor", { exact: true }).check();
   await save.click();
   await expect(page.getByTestId("roles-ok")).toHaveText(/Roles of 2 people saved\./);
   await page.reload();
-  await expect(row("welder2@irongully.example").getByLabel("Inspector", { exact: true })).toBeChecked();
-  await expect(row("auditor@irongully.example").getByLabel("Welder", { exact: true })).toBeChecked();
-  await expect(row("welder@irongully.example").getByLabel("Inspector", { exact: true })).not.toBeChecked();
+  await expect(row("welder@irongully.example").getByLabel("Auditor", { exact: true })).toBeChecked();
+  await expect(row("inspector@irongully.example").getByLabel("Auditor", { exact: true })).toBeChecked();
+  await expect(row("auditor@irongully.example").getByLabel("Welder", { exact: true })).not.toBeChecked();
 
   // Put them back, again with one Save.
-  await row("welder2@irongully.example").getByLabel("Inspector", { exact: true }).uncheck();
-  await row("auditor@irongully.example").getByLabel("Welder", { exact: true }).uncheck();
+  await row("welder@irongully.example").getByLabel("Auditor", { exact: true }).uncheck();
+  await row("inspector@irongully.example").getByLabel("Auditor", { exact: true }).uncheck();
   await save.click();
   await expect(page.getByTestId("roles-ok")).toHaveText(/Roles of 2 people saved\./);
 
-  // The only lead unticks their own lead role: refused with the reason, nothing changed.
+  // The only lead swaps their own lead role for welder: refused with the reason, nothing changed.
+  await row("lead@irongully.example").getByLabel("Welder", { exact: true }).check();
   await row("lead@irongully.example").getByLabel("Lead", { exact: true }).uncheck();
   await save.click();
   await expect(page.getByTestId("roles-error")).toContainText("at least one active lead");
   await page.reload();
   await expect(row("lead@irongully.example").getByLabel("Lead", { exact: true })).toBeChecked();
+  await expect(row("lead@irongully.example").getByLabel("Welder", { exact: true })).not.toBeChecked();
 });
