@@ -3,7 +3,7 @@
 // so a retry after a broken upload never makes a second copy. Refusals say why (type, size, damage).
 import { useState } from "react";
 import type { PhotoView } from "@/lib/jobs/record";
-import { PHOTO_MAX_BYTES } from "@/lib/jobs/schemas";
+import { PHOTO_MAX_BYTES } from "@/lib/jobs/limits";
 import { ApiError, newKey, uploadPhoto } from "./api";
 import { useSetRecord } from "./use-job";
 

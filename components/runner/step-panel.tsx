@@ -1,5 +1,6 @@
 "use client";
 // One step of the checklist: what to do, its kind's controls, photos, the live verdict, and signing.
+import dynamic from "next/dynamic";
 import { useState } from "react";
 import { Markdown } from "@/lib/procedures/markdown-view";
 import { KIND_LABELS } from "@/lib/procedures/labels";
@@ -13,9 +14,6 @@ import { measureBounds, measureVerdict, torqueVerdict } from "@/lib/jobs/toleran
 import { show, type PadQuantity } from "@/lib/jobs/units";
 import type { CautionValue, CheckValue, CoatingValue, GeometryValue, MeasureValue, TorqueValue } from "@/lib/jobs/values";
 import { apiJson, ApiError } from "./api";
-import { CoatingControl } from "./coating-control";
-import { GeometryControl } from "./geometry-control";
-import { NcCard, RaiseNcForm } from "./nc-panel";
 import { PhotoStrip } from "./photo-strip";
 import { PinDialog } from "./pin-dialog";
 import { boundsText, ReadingControl } from "./reading-control";
@@ -24,10 +22,17 @@ import { SignOffList } from "./sign-off-list";
 import { useSetRecord } from "./use-job";
 import { useStepDraft, type SaveState } from "./use-step-draft";
 import { Pill, VerdictBox } from "./verdict";
-import { InspectionPanel } from "./inspection-panel";
 import { HandOverPicker } from "./hand-over";
 import { StepBar } from "./step-bar";
 import { JointStatePill, WeldControl } from "./weld-control";
+
+// Controls of the rarer step kinds, the inspection form (with the zod check it runs) and the nonconformance
+// forms load when a step needs them, keeping the runner's first load light on a shop tablet.
+const InspectionPanel = dynamic(() => import("./inspection-panel").then((m) => m.InspectionPanel));
+const CoatingControl = dynamic(() => import("./coating-control").then((m) => m.CoatingControl));
+const GeometryControl = dynamic(() => import("./geometry-control").then((m) => m.GeometryControl));
+const NcCard = dynamic(() => import("./nc-panel").then((m) => m.NcCard));
+const RaiseNcForm = dynamic(() => import("./nc-panel").then((m) => m.RaiseNcForm));
 
 const SAVE_WORDS: Record<SaveState, { text: string; tone: "pass" | "wait" | "fail" | "idle" }> = {
   saved: { text: "Saved", tone: "pass" },

@@ -1,6 +1,6 @@
 import "server-only";
 import { createHash, randomBytes } from "node:crypto";
-import { and, asc, count, desc, eq, ilike, isNotNull, isNull, or, sql } from "drizzle-orm";
+import { and, asc, count, desc, eq, ilike, inArray, isNotNull, isNull, or, sql } from "drizzle-orm";
 import { invitation, membership, shop, shopActivity, user } from "@/db/schema";
 import { account, session } from "@/db/schema/auth";
 import type { Role } from "@/lib/authz";
@@ -156,6 +156,15 @@ export async function acceptInvitation(args: { token: string; name?: string; pas
     await tx.insert(shopActivity).values({ shopId: inv.shopId, actorId: userId, action: "person.joined", detail: { email: inv.email, roles: inv.roles } });
     return { shopId: inv.shopId, userId };
   });
+}
+
+/** Roles of the given memberships of this shop (others are left out). */
+export async function membersRoles(shopId: string, membershipIds: string[]) {
+  if (membershipIds.length === 0) return [];
+  return db()
+    .select({ id: membership.id, roles: membership.roles })
+    .from(membership)
+    .where(and(eq(membership.shopId, shopId), inArray(membership.id, membershipIds)));
 }
 
 async function memberOf(shopId: string, membershipId: string) {

@@ -1,7 +1,8 @@
 // Key results of a steering-geometry capture, computed from its input with lib/geometry. The server
 // recomputes these on every save, so a stored capture always agrees with its own input.
-import { computeSteeringGeometry } from "@/lib/geometry";
-import type { SteeringInput } from "@/lib/geometry";
+// From the module itself, not the index: the index also carries the zod schema, which the runner need not load.
+import { computeSteeringGeometry } from "@/lib/geometry/steering";
+import type { SteeringInput } from "@/lib/geometry/types";
 import type { GeometryResults } from "./values";
 
 const CURVE_POINTS = 41;
@@ -25,10 +26,7 @@ export function geometryResults(input: SteeringInput): GeometryResults {
   };
 }
 
-/** Which captures a geometry step needs before it can be signed. */
-export function requiredCaptures(capture: "before" | "after" | "both"): ("before" | "after")[] {
-  return capture === "both" ? ["before", "after"] : [capture];
-}
+export { requiredCaptures } from "./captures";
 
 type CaptureLike = { input: SteeringInput; results: GeometryResults };
 

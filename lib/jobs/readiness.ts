@@ -4,7 +4,7 @@
 import { checkDewPoint, evaluateDftArea, SPOTS_PER_AREA, MIN_READINGS_PER_SPOT, type DewPointResult, type DftAreaResult } from "@/lib/coating";
 import type { Step } from "@/lib/procedures/schema";
 import { canonicalJson } from "@/lib/seal/canonical-json";
-import { requiredCaptures } from "./geometry";
+import { requiredCaptures } from "./captures";
 import { DISPOSITION_LABELS, type DispositionName } from "./labels";
 import { measureVerdict, torqueVerdict, type Verdict } from "./tolerance";
 import type { JointView } from "./record";

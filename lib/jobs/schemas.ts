@@ -148,7 +148,7 @@ export const dispositionSchema = z
 export const releaseSchema = z.object({ pin: pinSchema }).strict();
 export const voidSchema = z.object({ reason: z.string().trim().min(5, "Say why the job is void (at least 5 characters).").max(1000) }).strict();
 
-export const PHOTO_MAX_BYTES = 20 * 1024 * 1024;
+export { PHOTO_MAX_BYTES } from "./limits";
 export const photoFieldsSchema = z.object({
   idempotencyKey: z.string().trim().regex(/^[A-Za-z0-9_-]{8,64}$/, "The upload key is 8 to 64 letters, digits, - or _."),
   stepId: z.uuid().optional(),

@@ -5,7 +5,7 @@ import type { ReactNode } from "react";
 import { Circle, G, Line, Path, Rect, Svg, Text as SvgText, View, Text } from "@react-pdf/renderer";
 import type { TravellerRecord } from "./traveller-data";
 import { FIGURE_FONT } from "./fonts";
-import { COLOR, s } from "./theme";
+import { COLOR, MIN_TEXT_PT, s } from "./theme";
 
 type Capture = NonNullable<NonNullable<TravellerRecord["geometry"]>["before"]>;
 type Pt = { y: number; z: number };
@@ -41,7 +41,7 @@ function Diagram({ capture, frame, title }: { capture: Capture; frame: DiagramFr
   const { pitmanEnd: P, knuckleEnd: K } = capture.dragLink;
   const C = capture.axleCenter;
   const label = (p: Pt, text: string, dy: number) => (
-    <SvgText x={X(p) + 5} y={Y(p) + dy} style={{ fontSize: 6.5, fontFamily: FIGURE_FONT }} fill={COLOR.body}>
+    <SvgText x={X(p) + 5} y={Y(p) + dy} style={{ fontSize: MIN_TEXT_PT, fontFamily: FIGURE_FONT }} fill={COLOR.body}>
       {text}
     </SvgText>
   );
@@ -147,7 +147,7 @@ export function SteeringWheelChart({ before, after, width }: { before: Capture |
   const X = (v: number) => pad.l + ((v - xMin) / Math.max(1e-9, xMax - xMin)) * (width - pad.l - pad.r);
   const Y = (v: number) => pad.t + ((yAbs - v) / (2 * yAbs)) * (H - pad.t - pad.b);
   const t = (x: number, y: number, text: string, anchor: "start" | "end" | "middle" = "start") => (
-    <SvgText x={x} y={y} textAnchor={anchor} style={{ fontSize: 6.5, fontFamily: FIGURE_FONT }} fill={COLOR.body}>
+    <SvgText x={x} y={y} textAnchor={anchor} style={{ fontSize: MIN_TEXT_PT, fontFamily: FIGURE_FONT }} fill={COLOR.body}>
       {text}
     </SvgText>
   );

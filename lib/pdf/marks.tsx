@@ -1,7 +1,7 @@
 // Verdict shapes drawn as vectors: the embedded latin subsets have no ●, ✕ or ▲, and a state must read
 // by shape and word even on a black-and-white copy. Every mark is paired with its word by the caller.
 import { Path, Svg, Text, View } from "@react-pdf/renderer";
-import { COLOR } from "./theme";
+import { COLOR, MIN_TEXT_PT } from "./theme";
 
 export type MarkShape = "dot" | "cross" | "ring" | "triangle" | "dash" | "square";
 
@@ -68,7 +68,7 @@ const VERDICTS: Record<VerdictKind, { shape: MarkShape; color: string; word: str
 };
 
 /** A shape and its word, e.g. a filled dot and "pass". */
-export function Verdict({ kind, word, size = 7, fontSize = 7.5, width }: { kind: VerdictKind; word?: string; size?: number; fontSize?: number; width?: number }) {
+export function Verdict({ kind, word, size = 7, fontSize = MIN_TEXT_PT, width }: { kind: VerdictKind; word?: string; size?: number; fontSize?: number; width?: number }) {
   const v = VERDICTS[kind];
   return (
     <View style={{ flexDirection: "row", alignItems: "center", marginTop: 0.5, ...(width === undefined ? {} : { width, marginLeft: 6 }) }}>

@@ -27,6 +27,9 @@ export const COLOR = {
 // glyph. Kerning stays on for the text face; the figure face is monospaced and needs none.
 const OFF = { calt: false, ccmp: false, locl: false, mark: false, mkmk: false, rlig: false, rclt: false, clig: false, curs: false } as const;
 export const TEXT_FEATURES = { ...OFF };
+// The smallest text on the traveller: 8 pt stays legible on a photocopy and under a shop light.
+export const MIN_TEXT_PT = 8;
+
 export const FIGURE_FEATURES = { ...OFF, kern: false, liga: false };
 
 export const MARGIN = { side: 40, top: 22, bottom: 18 } as const;
@@ -47,10 +50,10 @@ export const s = StyleSheet.create({
     paddingBottom: MARGIN.bottom,
   },
   mono: { fontFamily: FIGURE_FONT, fontFeatureSettings: FIGURE_FEATURES },
-  label: { fontSize: 6.5, fontWeight: 600, color: COLOR.muted, letterSpacing: 0.6, textTransform: "uppercase" },
+  label: { fontSize: MIN_TEXT_PT, fontWeight: 600, color: COLOR.muted, letterSpacing: 0.6, textTransform: "uppercase" },
   muted: { color: COLOR.muted },
-  small: { fontSize: 7.5 },
-  tiny: { fontSize: 6.5 },
+  small: { fontSize: MIN_TEXT_PT },
+  tiny: { fontSize: MIN_TEXT_PT },
   bold: { fontWeight: 600 },
   row: { flexDirection: "row" },
 
@@ -65,7 +68,7 @@ export const s = StyleSheet.create({
   wipBlock: { backgroundColor: COLOR.ink, paddingHorizontal: 8, justifyContent: "center" },
   wipText: { fontSize: 8, fontWeight: 700, letterSpacing: 0.6, color: COLOR.white },
   wipSubBox: { flexGrow: 1, flexShrink: 1, flexBasis: 0, paddingHorizontal: 8, paddingVertical: 3.5, justifyContent: "center" },
-  wipSub: { fontSize: 7, color: COLOR.ink2 },
+  wipSub: { fontSize: MIN_TEXT_PT, color: COLOR.ink2 },
 
   footer: {
     flexDirection: "row",
@@ -74,7 +77,7 @@ export const s = StyleSheet.create({
     borderTopColor: COLOR.ruleStrong,
     paddingTop: 4,
     marginTop: 10,
-    fontSize: 6.5,
+    fontSize: MIN_TEXT_PT,
     color: COLOR.muted,
   },
 
@@ -94,7 +97,7 @@ export const s = StyleSheet.create({
 
   sealPanel: { width: 176, marginLeft: 18, borderWidth: 0.75, borderColor: COLOR.ruleStrong, padding: 10, alignItems: "center" },
   sealShort: { fontFamily: FIGURE_FONT, fontFeatureSettings: FIGURE_FEATURES, fontSize: 14, fontWeight: 600, letterSpacing: 0.5 },
-  sealFull: { fontFamily: FIGURE_FONT, fontFeatureSettings: FIGURE_FEATURES, fontSize: 6.5, color: COLOR.body, textAlign: "center" },
+  sealFull: { fontFamily: FIGURE_FONT, fontFeatureSettings: FIGURE_FEATURES, fontSize: MIN_TEXT_PT, color: COLOR.body, textAlign: "center" },
 
   stats: { flexDirection: "row", marginTop: 14 },
   stat: { flex: 1, borderTopWidth: 2, borderTopColor: COLOR.ink, paddingTop: 4, marginRight: 10 },
@@ -105,21 +108,21 @@ export const s = StyleSheet.create({
   stepHead: { flexDirection: "row", alignItems: "flex-start" },
   stepNo: { width: 30, fontFamily: FIGURE_FONT, fontFeatureSettings: FIGURE_FEATURES, fontSize: 8, fontWeight: 600, paddingTop: 0.5 },
   stepTitle: { flex: 1, fontSize: 9, fontWeight: 600 },
-  stepKey: { fontFamily: FIGURE_FONT, fontFeatureSettings: FIGURE_FEATURES, fontSize: 6.5, fontWeight: 400, color: COLOR.faint },
-  stepKind: { fontSize: 6.5, fontWeight: 600, color: COLOR.muted, letterSpacing: 0.6, textTransform: "uppercase", marginLeft: 8, marginTop: 2 },
+  stepKey: { fontFamily: FIGURE_FONT, fontFeatureSettings: FIGURE_FEATURES, fontSize: MIN_TEXT_PT, fontWeight: 400, color: COLOR.faint },
+  stepKind: { fontSize: MIN_TEXT_PT, fontWeight: 600, color: COLOR.muted, letterSpacing: 0.6, textTransform: "uppercase", marginLeft: 8, marginTop: 2 },
   stepBody: { paddingLeft: 30 },
   result: { marginTop: 2, color: COLOR.ink2 },
   measures: { marginTop: 3, marginBottom: 1, borderLeftWidth: 1.5, borderLeftColor: COLOR.ruleStrong, paddingLeft: 6 },
   measureRow: { flexDirection: "row", paddingVertical: 0.8, alignItems: "center" },
   signOff: { marginTop: 2.5 },
-  signRef: { fontFamily: FIGURE_FONT, fontFeatureSettings: FIGURE_FEATURES, fontSize: 7, color: COLOR.muted },
+  signRef: { fontFamily: FIGURE_FONT, fontFeatureSettings: FIGURE_FEATURES, fontSize: MIN_TEXT_PT, color: COLOR.muted },
 
   table: { borderTopWidth: 1, borderTopColor: COLOR.ink },
   th: { flexDirection: "row", borderBottomWidth: 0.75, borderBottomColor: COLOR.ink, paddingVertical: 3 },
   tr: { flexDirection: "row", borderBottomWidth: 0.5, borderBottomColor: COLOR.ruleStrong, paddingVertical: 3.5 },
   cell: { paddingRight: 5 },
   round: { marginTop: 3, marginLeft: 12, paddingLeft: 6, borderLeftWidth: 1.5, borderLeftColor: COLOR.ruleStrong },
-  roundHead: { fontSize: 7.5, fontWeight: 700, marginBottom: 0.5 },
+  roundHead: { fontSize: MIN_TEXT_PT, fontWeight: 700, marginBottom: 0.5 },
 
 
   safety: { flexDirection: "row", borderWidth: 1.25, borderColor: COLOR.ink, padding: 10, marginTop: 16 },

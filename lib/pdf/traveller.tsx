@@ -10,7 +10,7 @@ import { GeometryDiagrams, SteeringWheelChart } from "./geometry-diagram";
 import { Mark, Verdict, type MarkShape, type VerdictKind } from "./marks";
 import { makeQr, type TravellerQr } from "./qr";
 import { markerShapePath, MARKER_LOOK, seamPath, type MarkerState } from "@/lib/weld-map";
-import { COLOR, MARGIN, s } from "./theme";
+import { COLOR, MARGIN, MIN_TEXT_PT, s } from "./theme";
 import { parseTravellerData, type TravellerData, type TravellerJointState, type TravellerRecord, type TravellerJobState, type TravellerStepKind } from "./traveller-data";
 
 export const HAZARD_LINE = "Hot work, fumes, cutting and grinding, coatings and steering components can hurt people.";
@@ -199,8 +199,8 @@ function SealPanel({ c }: { c: Ctx }) {
       <Text style={[s.label, { marginBottom: 2 }]}>Verify this record</Text>
       <QrCode qr={c.qr} />
       <View style={{ marginTop: 1, alignItems: "center" }}>
-        {wrapUrl(c.d.verifyUrl, 38).map((line, i) => (
-          <Text key={i} style={[s.mono, { fontSize: 6.5, color: COLOR.ink }]}>
+        {wrapUrl(c.d.verifyUrl, 32).map((line, i) => (
+          <Text key={i} style={[s.mono, { fontSize: MIN_TEXT_PT, color: COLOR.ink }]}>
             {P(line)}
           </Text>
         ))}

@@ -66,18 +66,22 @@ export function nextJointId(content: VersionContent): string {
 }
 
 // Replaces the step saved under `originalKey`, or inserts a new one into `sectionKey` (at `position`, else at the end).
-export function upsertStep(content: VersionContent, args: { sectionKey: string; originalKey?: string; step: Step; position?: number }): VersionContent {
+// The editor owns step keys: jobs, diffs and the next version find a step by its key, so a saved step keeps the
+// one it has whatever its title becomes, and a new step gets one made from its title, unique in the version.
+// A key in `step` is never used. Returns the content and the key the step was saved under.
+export function upsertStep(content: VersionContent, args: { sectionKey: string; originalKey?: string; step: Step; position?: number }): { content: VersionContent; key: string } {
   const next = clone(content);
   if (args.originalKey) {
     const { si, ti } = mustLocate(next, args.originalKey);
-    next.sections[si]!.steps[ti] = args.step;
-    return next;
+    next.sections[si]!.steps[ti] = { ...args.step, key: args.originalKey };
+    return { content: next, key: args.originalKey };
   }
   const si = sectionIndex(next, args.sectionKey);
   const steps = next.sections[si]!.steps;
+  const key = uniqueKey(next, args.step.title || args.step.kind);
   const at = args.position === undefined ? steps.length : Math.max(0, Math.min(steps.length, args.position));
-  steps.splice(at, 0, args.step);
-  return next;
+  steps.splice(at, 0, { ...args.step, key });
+  return { content: next, key };
 }
 
 // Up from the first step of a section goes to the end of the one before; down from the last, to the start of the next.

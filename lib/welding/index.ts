@@ -1,4 +1,5 @@
 // Pure welding domain module: no I/O, no Node-only APIs; safe to import from server and browser.
+// The zod schemas are imported from "./schema" directly, so screens that only compute never ship zod.
 export * from "./units";
 export * from "./processes";
 export * from "./heat-input";
@@ -8,4 +9,3 @@ export * from "./fillet-weld";
 export * from "./visual-acceptance";
 export * from "./continuity";
 export * from "./bolt-torque";
-export * from "./schema";

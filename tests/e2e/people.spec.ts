@@ -1,4 +1,4 @@
-import { expect, signInAs, test } from "./support";
+import { expect, signedInAs, signInAs, test } from "./support";
 
 test("a lead invites a welder; the mail shows in the local mailbox; the invitee joins and lands on the bench", async ({ page, browser }) => {
   const email = `fitter-${Date.now()}@irongully.example`;
@@ -57,4 +57,37 @@ test("a person sets their signing PIN; a short PIN is refused beside the field",
   await form.getByLabel("New PIN again").fill("2468");
   await form.getByRole("button", { name: "Save PIN" }).click();
   await expect(page.getByTestId("pin-ok")).toContainText("Signing PIN saved.");
+});
+
+test("a lead changes two people's roles with one Save; the last lead cannot drop the lead role", async ({ page }) => {
+  await signedInAs(page, "lead@irongully.example");
+  await page.goto("/people");
+  const table = page.getByTestId("members-table");
+  const row = (email: string) => table.getByRole("row").filter({ hasText: email });
+  const save = page.getByRole("button", { name: "Save roles" });
+  await expect(save).toHaveCount(1);
+
+  await row("welder@irongully.example").getByLabel("Auditor", { exact: true }).check();
+  await row("inspector@irongully.example").getByLabel("Auditor", { exact: true }).check();
+  await save.click();
+  await expect(page.getByTestId("roles-ok")).toHaveText(/Roles of 2 people saved\./);
+  await page.reload();
+  await expect(row("welder@irongully.example").getByLabel("Auditor", { exact: true })).toBeChecked();
+  await expect(row("inspector@irongully.example").getByLabel("Auditor", { exact: true })).toBeChecked();
+  await expect(row("auditor@irongully.example").getByLabel("Welder", { exact: true })).not.toBeChecked();
+
+  // Put them back, again with one Save.
+  await row("welder@irongully.example").getByLabel("Auditor", { exact: true }).uncheck();
+  await row("inspector@irongully.example").getByLabel("Auditor", { exact: true }).uncheck();
+  await save.click();
+  await expect(page.getByTestId("roles-ok")).toHaveText(/Roles of 2 people saved\./);
+
+  // The only lead swaps their own lead role for welder: refused with the reason, nothing changed.
+  await row("lead@irongully.example").getByLabel("Welder", { exact: true }).check();
+  await row("lead@irongully.example").getByLabel("Lead", { exact: true }).uncheck();
+  await save.click();
+  await expect(page.getByTestId("roles-error")).toContainText("at least one active lead");
+  await page.reload();
+  await expect(row("lead@irongully.example").getByLabel("Lead", { exact: true })).toBeChecked();
+  await expect(row("lead@irongully.example").getByLabel("Welder", { exact: true })).not.toBeChecked();
 });

@@ -41,13 +41,19 @@ test("a lead writes a procedure from a starter, publishes it, edits version 2, p
   await added.getByRole("button", { name: "Add step" }).click();
   await expect(page.getByTestId("error-step.title")).toHaveText("A title is required.");
   await added.getByLabel("Title").fill("Record the coating batch numbers");
-  await added.getByLabel("Key").fill("coat-batch");
+  // Nobody types a key: the editor makes one from the title and keeps it when the title changes later.
+  await expect(added.getByLabel("Key")).toHaveCount(0);
   await added.getByRole("button", { name: "Add step" }).click();
-  await expect(page.getByTestId("outline-step-coat-batch")).toContainText("▸ editing");
+  await expect(page.getByTestId("outline-step-record-the-coating-batch-numbers")).toContainText("▸ editing");
+  const saved = page.getByTestId("step-form");
+  await expect(saved.getByTestId("step-key")).toContainText("record-the-coating-batch-numbers");
+  await saved.getByLabel("Title").fill("Record coating batch and lot numbers");
+  await saved.getByRole("button", { name: "Save step" }).click();
+  await expect(page.getByTestId("outline-step-record-the-coating-batch-numbers")).toContainText("Record coating batch and lot numbers");
 
   // Reorder: move the new step up one place.
-  await page.getByRole("button", { name: "Move “Record the coating batch numbers” up" }).click();
-  await expect(page.getByTestId("outline-section-coat-apply").locator("li").nth(4)).toContainText("Record the coating batch numbers");
+  await page.getByRole("button", { name: "Move “Record coating batch and lot numbers” up" }).click();
+  await expect(page.getByTestId("outline-section-coat-apply").locator("li").nth(4)).toContainText("Record coating batch and lot numbers");
 
   // Publish version 2 with a note and land on the diff against version 1.
   await page.getByTestId("go-publish").click();
@@ -65,7 +71,7 @@ test("a lead writes a procedure from a starter, publishes it, edits version 2, p
   await expect(topcoat).toHaveAttribute("data-change", "changed");
   await expect(topcoat.getByTestId("change-dftMaxUm").first()).toContainText("80");
   await expect(topcoat.getByTestId("change-dftMaxUm").last()).toContainText("90");
-  await expect(page.getByTestId("diff-row-coat-batch")).toHaveAttribute("data-change", "added");
+  await expect(page.getByTestId("diff-row-record-the-coating-batch-numbers")).toHaveAttribute("data-change", "added");
   await expect(page.getByRole("columnheader", { name: "v1 · Retired" }).first()).toBeVisible();
   await expect(page.getByRole("columnheader", { name: "v2 · Published" }).first()).toBeVisible();
 

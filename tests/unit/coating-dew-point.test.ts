@@ -3,7 +3,8 @@ import path from "node:path";
 
 import { describe, expect, it } from "vitest";
 
-import { checkDewPoint, dewPointC, dewPointRequestSchema } from "@/lib/coating";
+import { checkDewPoint, dewPointC } from "@/lib/coating";
+import { dewPointRequestSchema } from "@/lib/coating/schemas";
 
 // Sources: /work/shared/REFERENCES.md, section Coatings.
 describe("dewPointC — Magnus with Alduchov & Eskridge 1996 coefficients (a = 17.625, b = 243.04 °C)", () => {

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 
-import { dftAreasToMeasure, dftRequestSchema, dftSpotLimits, evaluateDftArea } from "@/lib/coating";
+import { dftAreasToMeasure, dftSpotLimits, evaluateDftArea } from "@/lib/coating";
+import { dftRequestSchema } from "@/lib/coating/schemas";
 
 // Source: SSPC-PA 2 (2015, editorial revision 2018), as summarised in REFERENCES.md (Coatings).
 describe("dftSpotLimits — spot ≥ 80 % of min, ≤ 120 % of max (SSPC-PA 2, pub)", () => {

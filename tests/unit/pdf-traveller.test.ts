@@ -59,6 +59,32 @@ beforeAll(async () => {
   letter = await render(await buildTravellerFixture({ released: true, paper: "letter" }));
 }, 120_000);
 
+/** Each run of text on every page with the size pdf.js reads from its text matrix (points, rotation-free). */
+async function textSizes(pdf: Buffer): Promise<{ page: number; text: string; pt: number }[]> {
+  const doc = await getDocumentProxy(new Uint8Array(pdf));
+  const out: { page: number; text: string; pt: number }[] = [];
+  for (let n = 1; n <= doc.numPages; n++) {
+    const content = await (await doc.getPage(n)).getTextContent();
+    for (const item of content.items) {
+      if (!("str" in item) || !item.str.trim()) continue;
+      const [, , c, d] = item.transform as number[];
+      out.push({ page: n, text: item.str, pt: Math.hypot(c!, d!) });
+    }
+  }
+  return out;
+}
+
+describe("traveller type size", () => {
+  it("prints no text under 8 pt on any page, released, in progress or void", async () => {
+    for (const r of [released, wip, voided, letter]) {
+      const sizes = await textSizes(r.pdf);
+      expect(sizes.length).toBeGreaterThan(50);
+      const small = sizes.filter((x) => x.pt < 8 - 0.01);
+      expect(small.slice(0, 5)).toEqual([]);
+    }
+  }, 60_000);
+});
+
 describe("traveller text", () => {
   it("prints the job number and the page count in the header of every page", () => {
     const n = released.pages.length;

@@ -45,10 +45,24 @@ describe("draft edits", () => {
     expect(nextJointId(c)).toBe("W5");
   });
 
-  it("inserts a new step at a position and replaces one by its old key", () => {
-    const step: Step = { key: "n", kind: "check", title: "New", instructions: "", signedBy: "welder", photos: { required: false, min: 0 } };
-    expect(order(upsertStep(content(), { sectionKey: "a", step, position: 1 }))).toEqual(["a:a1,n,a2", "b:w"]);
-    expect(order(upsertStep(content(), { sectionKey: "a", originalKey: "a2", step }))).toEqual(["a:a1,n", "b:w"]);
+  it("a new step's key is made from its title, unique in the version, whatever key it came with", () => {
+    const step: Step = { key: "typed", kind: "check", title: "Fit up & tack!", instructions: "", signedBy: "welder", photos: { required: false, min: 0 } };
+    const added = upsertStep(content(), { sectionKey: "a", step, position: 1 });
+    expect(added.key).toBe("fit-up-tack");
+    expect(order(added.content)).toEqual(["a:a1,fit-up-tack,a2", "b:w"]);
+    // A title that slugs to a key already taken (here the step "a1") gets the next free number.
+    const clash = upsertStep(content(), { sectionKey: "b", step: { ...step, title: "A1" } });
+    expect(clash.key).toBe("a1-2");
+    expect(order(clash.content)).toEqual(["a:a1,a2", "b:w,a1-2"]);
+  });
+
+  it("a saved step keeps its key when its title changes", () => {
+    const step: Step = { key: "ignored", kind: "check", title: "Renamed entirely", instructions: "", signedBy: "welder", photos: { required: false, min: 0 } };
+    const saved = upsertStep(content(), { sectionKey: "a", originalKey: "a2", step });
+    expect(saved.key).toBe("a2");
+    expect(order(saved.content)).toEqual(["a:a1,a2", "b:w"]);
+    expect(saved.content.sections[0]!.steps[1]!.title).toBe("Renamed entirely");
+    expect(versionContentSchema.safeParse(saved.content).success).toBe(true);
   });
 
   it("does not change the content it is given", () => {

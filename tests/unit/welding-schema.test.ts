@@ -1,15 +1,7 @@
 import { describe, expect, it } from "vitest";
 import type { z } from "zod";
-import {
-  continuityRequestSchema,
-  filletWeldRequestSchema,
-  heatInputRequestSchema,
-  heatInput,
-  passHeatInputRequestSchema,
-  visualObservationsSchema,
-  visualRequestSchema,
-  wpsRangesSchema,
-} from "@/lib/welding";
+import { heatInput } from "@/lib/welding";
+import { continuityRequestSchema, filletWeldRequestSchema, heatInputRequestSchema, passHeatInputRequestSchema, visualObservationsSchema, visualRequestSchema, wpsRangesSchema } from "@/lib/welding/schema";
 
 // Returns the issues as "path: message" so each test can say which field failed and why.
 function issues(schema: z.ZodType, input: unknown): string[] {

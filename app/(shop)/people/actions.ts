@@ -1,7 +1,8 @@
 "use server";
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
-import { resetPin, setActive, setLegalName, setRoles } from "@/db/queries/people";
+import { membersRoles, resetPin, setActive, setLegalName, setRoles } from "@/db/queries/people";
+import { AppError } from "@/lib/errors";
 import { runFormAction, type FormState } from "@/lib/api/action";
 import { inviteAndMail } from "@/lib/people/invite";
 import { inviteSchema, rolesField } from "@/lib/schemas/auth";
@@ -16,13 +17,37 @@ export async function invitePerson(_: FormState | undefined, formData: FormData)
   });
 }
 
-const rolesSchema = z.object({ membershipId: z.string().uuid(), roles: rolesField });
+// Every active person on the page, with the roles ticked for them: one Save for the whole table.
+const rolesSchema = z.object({
+  members: z.array(z.object({ membershipId: z.string().uuid(), name: z.string().trim().max(200).default(""), roles: rolesField }), { message: "Nobody to save." }).min(1, "Nobody to save.").max(100),
+});
 
 export async function saveRoles(_: FormState | undefined, formData: FormData): Promise<FormState> {
   return runFormAction(formData, { schema: rolesSchema, action: "people:manage" }, async (value, ctx) => {
-    await setRoles({ shopId: ctx.shopId, membershipId: value.membershipId, roles: value.roles, actorId: ctx.userId });
+    // Only the people whose roles changed are written (and logged); the rest stay as they are.
+    const current = new Map((await membersRoles(ctx.shopId, value.members.map((m) => m.membershipId))).map((m) => [m.id, m.roles]));
+    const changed = value.members.filter((m) => {
+      const before = current.get(m.membershipId);
+      return !before || before.length !== m.roles.length || m.roles.some((r) => !before.includes(r));
+    });
+    let saved = 0;
+    for (const [i, m] of value.members.entries()) {
+      if (!changed.includes(m)) continue;
+      try {
+        await setRoles({ shopId: ctx.shopId, membershipId: m.membershipId, roles: m.roles, actorId: ctx.userId });
+        saved++;
+      } catch (error) {
+        if (error instanceof AppError) {
+          revalidatePath("/people");
+          const done = saved ? ` The roles of ${saved} ${saved === 1 ? "person were" : "people were"} saved before this one.` : "";
+          throw new AppError(error.code, `${m.name || "One person"}: ${error.message}${done}`, { [`members[${i}].roles`]: [error.message] });
+        }
+        throw error;
+      }
+    }
     revalidatePath("/people");
-    return "Roles saved.";
+    if (changed.length === 0) return "No roles changed.";
+    return changed.length === 1 ? `Roles of ${changed[0]!.name || "1 person"} saved.` : `Roles of ${changed.length} people saved.`;
   });
 }
 

@@ -93,10 +93,12 @@ export async function saveStepAction(_: FormState | undefined, formData: FormDat
   let target: string | undefined;
   const state = await runFormAction(formData, { schema: stepFormSchema, action: "procedure:write" }, async (value, ctx) => {
     let at: { si: number; ti: number } | null = null;
+    let savedKey = value.originalKey ?? "";
     try {
       await changeDraft({ shopId: ctx.shopId, procedureId: value.procedureId, number: value.number }, (current) => {
-        const content = upsertStep(current.content, { sectionKey: value.sectionKey, originalKey: value.originalKey, step: value.step, position: value.position });
-        at = locateStep(content, value.step.key);
+        const { content, key } = upsertStep(current.content, { sectionKey: value.sectionKey, originalKey: value.originalKey, step: value.step, position: value.position });
+        savedKey = key;
+        at = locateStep(content, key);
         return { content };
       });
     } catch (error) {
@@ -104,7 +106,7 @@ export async function saveStepAction(_: FormState | undefined, formData: FormDat
       throw error;
     }
     refresh();
-    target = editorPath(value.procedureId, value.number, `?step=${encodeURIComponent(value.step.key)}`);
+    target = editorPath(value.procedureId, value.number, `?step=${encodeURIComponent(savedKey)}`);
     return value.originalKey ? `Step “${value.step.title}” saved.` : `Step “${value.step.title}” added.`;
   });
   if (target) redirect(target);

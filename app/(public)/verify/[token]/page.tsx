@@ -89,7 +89,7 @@ export default async function VerifyPage({ params, searchParams }: { params: Pro
       {!paper && sealQuery.success ? (
         <p className="card p-4 text-graphite-700" data-testid="paper-none">
           No seal from the paper was given, so only the record itself was checked. Scan the traveller&apos;s QR code, or{" "}
-          <Link className="font-semibold underline" href="/scan">type the seal printed on it</Link>, to compare the paper with the record.
+          <Link className="font-semibold underline" href="/scan" prefetch={false}>type the seal printed on it</Link>, to compare the paper with the record.
         </p>
       ) : null}
       <section className="card p-5">
@@ -130,7 +130,7 @@ export default async function VerifyPage({ params, searchParams }: { params: Pro
           <h2 className="font-bold">Your shop&apos;s record</h2>
           <p className="mt-1 text-graphite-700">You are signed in as a member of {v.shop}: the whole record is open to you, read-only.</p>
           <div className="mt-3 flex flex-wrap gap-2">
-            <Link className="btn btn-primary" href={`/jobs/${found.jobId}`}>Open the full record</Link>
+            <Link className="btn btn-primary" href={`/jobs/${found.jobId}`} prefetch={false}>Open the full record</Link>
             <a className="btn btn-quiet" href={`/api/jobs/${found.jobId}/traveller`}>Traveller PDF</a>
             <a className="btn btn-quiet" href={`/api/jobs/${found.jobId}/export.csv`}>Record as CSV</a>
           </div>
@@ -153,7 +153,7 @@ export default async function VerifyPage({ params, searchParams }: { params: Pro
       ) : (
         <p className="card p-4 text-graphite-700">
           Customer and people are shown only to members of the shop.{" "}
-          <Link className="font-semibold underline" href={`/sign-in?next=/verify/${token}`}>Sign in</Link> to see the whole record.
+          <Link className="font-semibold underline" href={`/sign-in?next=/verify/${token}`} prefetch={false}>Sign in</Link> to see the whole record.
         </p>
       )}
       <SafetyNote />

@@ -4,22 +4,40 @@ import { FormMessage } from "@/components/form-message";
 import { ROLE_LABELS, ROLES, type Role } from "@/lib/authz";
 import { resetMemberPin, saveActive, saveLegalName, saveRoles } from "../actions";
 
-export function RolesForm({ membershipId, roles, name }: { membershipId: string; roles: Role[]; name: string }) {
-  const [state, action, pending] = useActionState(saveRoles, undefined);
-  const error = state?.error ? Object.values(state.error).flat().filter(Boolean) as string[] : undefined;
+export const ROLES_FORM_ID = "roles-form";
+
+// One person's role boxes. They belong to the page's one roles form (by the `form` attribute), so the table
+// keeps its rows while a single Save sends every person's roles.
+export function RoleChecks({ index, membershipId, roles, name }: { index: number; membershipId: string; roles: Role[]; name: string }) {
   return (
-    <form action={action} className="min-w-[19rem] space-y-1" aria-label={`Roles of ${name}`}>
-      <input type="hidden" name="membershipId" value={membershipId} />
+    <fieldset className="min-w-[19rem]" aria-label={`Roles of ${name}`}>
+      <input type="hidden" form={ROLES_FORM_ID} name={`members[${index}].membershipId`} value={membershipId} />
+      <input type="hidden" form={ROLES_FORM_ID} name={`members[${index}].name`} value={name} />
       <div className="flex flex-wrap gap-1">
         {ROLES.map((r) => (
           <label key={r} className="flex min-h-11 items-center gap-1 rounded border border-graphite-300 px-2 text-sm">
-            <input type="checkbox" name="roles" value={r} defaultChecked={roles.includes(r)} className="h-5 w-5" />
+            <input type="checkbox" form={ROLES_FORM_ID} name={`members[${index}].roles`} value={r} defaultChecked={roles.includes(r)} className="h-5 w-5" />
             {ROLE_LABELS[r]}
           </label>
         ))}
-        <button type="submit" className="btn btn-quiet text-sm" disabled={pending}>Save roles</button>
       </div>
-      <FormMessage ok={state?.ok} errors={error} />
+    </fieldset>
+  );
+}
+
+export function RolesSaveBar() {
+  const [state, action, pending] = useActionState(saveRoles, undefined);
+  const error = state?.error ? (Object.values(state.error).flat().filter(Boolean) as string[]) : undefined;
+  return (
+    // Kept in view at the foot of the screen while the lead works down the table.
+    <form id={ROLES_FORM_ID} action={action} className="card sticky bottom-2 z-10 flex flex-wrap items-center gap-3 p-3 shadow-md" aria-label="Roles of everyone listed">
+      <button type="submit" className="btn btn-primary" disabled={pending}>
+        {pending ? "Saving roles…" : "Save roles"}
+      </button>
+      <span className="text-sm text-graphite-600">Tick the roles in the table, then save once for everyone listed.</span>
+      <div className="basis-full empty:hidden" aria-live="polite">
+        <FormMessage ok={state?.ok} errors={error} testId="roles" />
+      </div>
     </form>
   );
 }

@@ -3,7 +3,7 @@ import type { ColumnDef } from "@tanstack/react-table";
 import { DataTable } from "@/components/data-table";
 import { StatusBadge } from "@/components/status-badge";
 import { ROLE_LABELS, type Role } from "@/lib/authz";
-import { ActiveForm, LegalNameForm, PinResetForm, RolesForm } from "./member-actions";
+import { ActiveForm, LegalNameForm, PinResetForm, RoleChecks, RolesSaveBar } from "./member-actions";
 
 export type MemberView = {
   membershipId: string;
@@ -36,7 +36,7 @@ const columns: ColumnDef<MemberView, unknown>[] = [
     header: "Roles",
     cell: ({ row }) =>
       row.original.active ? (
-        <RolesForm membershipId={row.original.membershipId} roles={row.original.roles} name={row.original.name} />
+        <RoleChecks index={row.index} membershipId={row.original.membershipId} roles={row.original.roles} name={row.original.name} />
       ) : (
         <span>{row.original.roles.map((r) => ROLE_LABELS[r]).join(", ")}</span>
       ),
@@ -57,5 +57,10 @@ const columns: ColumnDef<MemberView, unknown>[] = [
 ];
 
 export function MembersTable(props: { data: MemberView[]; total: number; page: number; pageSize: number }) {
-  return <DataTable columns={columns} caption="Members of this shop" testId="members-table" {...props} />;
+  return (
+    <div className="space-y-3">
+      <DataTable columns={columns} caption="Members of this shop" testId="members-table" {...props} />
+      {props.data.some((m) => m.active) ? <RolesSaveBar /> : null}
+    </div>
+  );
 }

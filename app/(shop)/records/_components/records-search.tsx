@@ -5,6 +5,14 @@ import { RecordsTable } from "./records-table";
 
 const PAGE_SIZE = 20;
 
+function exportQuery(q: { q?: string; from?: string; to?: string }) {
+  const p = new URLSearchParams();
+  if (q.q) p.set("q", q.q);
+  if (q.from) p.set("from", q.from);
+  if (q.to) p.set("to", q.to);
+  return p.toString();
+}
+
 // The search form and its results; shared by the auditor's desk and the Released records page.
 export async function RecordsSearch({ shopId, params, action }: { shopId: string; params: Record<string, string | string[] | undefined>; action: string }) {
   const flat = Object.fromEntries(Object.entries(params).map(([k, v]) => [k, Array.isArray(v) ? v[0] : v]));
@@ -35,6 +43,15 @@ export async function RecordsSearch({ shopId, params, action }: { shopId: string
           <Link className="btn btn-quiet" href={action}>Clear</Link>
         </div>
       </form>
+      {parsed.success && total > 0 ? (
+        <p className="flex flex-wrap items-center gap-3">
+          {/* The same filters, every page: one row per recorded value, with value, unit, limit and verdict. */}
+          <a className="btn btn-quiet" data-testid="records-export" download href={`/api/records/export.csv?${exportQuery(parsed.data)}`}>
+            Download all {total} as CSV
+          </a>
+          <span className="text-sm text-graphite-600">One row per reading, torque, coating figure and weld pass value.</span>
+        </p>
+      ) : null}
       <RecordsTable data={rows.map((r) => ({ ...r, releasedAt: r.releasedAt ? r.releasedAt.toISOString() : null }))} total={total} page={q.page} pageSize={PAGE_SIZE} />
     </div>
   );

@@ -1,4 +1,5 @@
-import { checkDewPoint, dewPointRequestSchema } from "@/lib/coating";
+import { checkDewPoint } from "@/lib/coating";
+import { dewPointRequestSchema } from "@/lib/coating/schemas";
 import { calcRoute } from "../_lib/calc-route";
 
 export const dynamic = "force-dynamic";

@@ -1,4 +1,5 @@
-import { dftRequestSchema, evaluateDftArea } from "@/lib/coating";
+import { evaluateDftArea } from "@/lib/coating";
+import { dftRequestSchema } from "@/lib/coating/schemas";
 import { calcRoute } from "../_lib/calc-route";
 
 export const dynamic = "force-dynamic";

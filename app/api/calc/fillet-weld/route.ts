@@ -1,4 +1,5 @@
-import { filletWeld, filletWeldRequestSchema } from "@/lib/welding";
+import { filletWeld } from "@/lib/welding";
+import { filletWeldRequestSchema } from "@/lib/welding/schema";
 import { calcRoute } from "../_lib/calc-route";
 
 export const dynamic = "force-dynamic";

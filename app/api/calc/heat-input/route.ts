@@ -1,4 +1,5 @@
-import { heatInput, heatInputRequestSchema } from "@/lib/welding";
+import { heatInput } from "@/lib/welding";
+import { heatInputRequestSchema } from "@/lib/welding/schema";
 import { calcRoute } from "../_lib/calc-route";
 
 export const dynamic = "force-dynamic";

@@ -5,7 +5,8 @@ import { Figure } from "@/components/calc/figure";
 import { useTouched } from "@/components/calc/use-touched";
 import { convertText, fieldErrors, figure, numberText, optionalNumberText, quantityText, shown, symbolFor, trimNumber, type FieldErrors, type UnitSystem } from "@/components/calc/values";
 import { StatusBadge } from "@/components/status-badge";
-import { checkDewPoint, DEFAULT_REQUIRED_MARGIN_C, dewPointRequestSchema, MAGNUS_VALID_RANGE_C, RH_WARNING_ABOVE_PCT, type DewPointResult, type MagnusCoefficients } from "@/lib/coating";
+import { checkDewPoint, DEFAULT_REQUIRED_MARGIN_C, MAGNUS_VALID_RANGE_C, RH_WARNING_ABOVE_PCT, type DewPointResult, type MagnusCoefficients } from "@/lib/coating";
+import { dewPointRequestSchema } from "@/lib/coating/schemas";
 import { preferredUnit } from "@/lib/units";
 
 type State = { units: UnitSystem; air: string; rh: string; surface: string; margin: string; coefficients: MagnusCoefficients };

@@ -4,7 +4,8 @@ import { FixList, Segmented, TextField } from "@/components/calc/fields";
 import { Figure } from "@/components/calc/figure";
 import { fieldErrors, figure, numberText, readPlainNumber, trimNumber, type FieldErrors, type UnitSystem } from "@/components/calc/values";
 import { StatusBadge } from "@/components/status-badge";
-import { dftAreasToMeasure, dftRequestSchema, evaluateDftArea, MIN_READINGS_PER_SPOT, SPOTS_PER_AREA, type DftAreaResult } from "@/lib/coating";
+import { dftAreasToMeasure, evaluateDftArea, MIN_READINGS_PER_SPOT, SPOTS_PER_AREA, type DftAreaResult } from "@/lib/coating";
+import { dftRequestSchema } from "@/lib/coating/schemas";
 import { UM_PER_MIL } from "@/lib/units";
 
 type Unit = "um" | "mil";

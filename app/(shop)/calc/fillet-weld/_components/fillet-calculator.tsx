@@ -6,7 +6,8 @@ import { useTouched } from "@/components/calc/use-touched";
 import { convertText, fieldErrors, figure, numberText, optionalQuantityText, quantityText, shown, symbolFor, type FieldErrors, type UnitSystem } from "@/components/calc/values";
 import { StatusBadge } from "@/components/status-badge";
 import { preferredUnit } from "@/lib/units";
-import { ELECTRODE_CLASSES, filletWeld, filletWeldRequestSchema, KN_PER_KIP, MM_PER_IN, mpaToKsi, type ElectrodeClass, type FilletWeldResult } from "@/lib/welding";
+import { ELECTRODE_CLASSES, filletWeld, KN_PER_KIP, MM_PER_IN, mpaToKsi, type ElectrodeClass, type FilletWeldResult } from "@/lib/welding";
+import { filletWeldRequestSchema } from "@/lib/welding/schema";
 
 type State = {
   units: UnitSystem;

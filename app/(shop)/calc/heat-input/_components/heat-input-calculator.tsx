@@ -5,15 +5,8 @@ import { Figure } from "@/components/calc/figure";
 import { HeatTintGauge } from "@/components/calc/heat-tint-gauge";
 import { useTouched } from "@/components/calc/use-touched";
 import { fieldErrors, figure, numberText, type FieldErrors, type UnitSystem } from "@/components/calc/values";
-import {
-  heatInput,
-  heatInputRequestSchema,
-  passHeatInput,
-  passHeatInputRequestSchema,
-  PROCESS_INFO,
-  PROCESSES,
-  type WeldingProcess,
-} from "@/lib/welding";
+import { heatInput, passHeatInput, PROCESS_INFO, PROCESSES, type WeldingProcess } from "@/lib/welding";
+import { heatInputRequestSchema, passHeatInputRequestSchema } from "@/lib/welding/schema";
 
 type Method = "arc" | "power" | "energy";
 

@@ -2,12 +2,11 @@
 import { getFormProps, useForm } from "@conform-to/react";
 import { parseWithZod } from "@conform-to/zod/v4";
 import Link from "next/link";
-import { startTransition, useActionState, useRef, useState } from "react";
+import { startTransition, useActionState, useState } from "react";
 import type { z } from "zod";
 import { FormMessage } from "@/components/form-message";
 import { fieldLabel, CAPTURE_LABELS, HAZARD_LABELS, KIND_HINTS, KIND_LABELS, QUANTITY_LABELS, QUANTITY_SYMBOLS, SIGNER_LABELS, TOLERANCE_LABELS, TORQUE_UNIT_LABELS } from "@/lib/procedures/labels";
 import { stepFormSchema, TORQUE_TO_NM } from "@/lib/procedures/forms";
-import { slugKey } from "@/lib/procedures/edit";
 import { Markdown } from "@/lib/procedures/markdown-view";
 import { GEOMETRY_CAPTURES, HAZARDS, JOINT_TYPES, MEASURE_QUANTITIES, SIGNER_ROLES, STEP_KINDS, WELD_PROCESSES, type StepKind } from "@/lib/procedures/schema";
 import { saveStepAction } from "../../actions";
@@ -48,14 +47,6 @@ export function StepForm({
   const [kind, setKind] = useState<StepKind>(initial.kind);
   const [instructions, setInstructions] = useState(str(initial.instructions) ?? "");
   const [preview, setPreview] = useState(false);
-  // A new step's key follows its title until the lead types a key of their own.
-  const keyTouched = useRef(Boolean(originalKey));
-  const formRef = useRef<HTMLFormElement>(null);
-  const followTitle = (title: string) => {
-    if (keyTouched.current || !formRef.current) return;
-    const input = formRef.current.elements.namedItem("step.key") as HTMLInputElement | null;
-    if (input && title.trim()) input.value = slugKey(title);
-  };
   const initialTolerance = (initial.tolerance ?? {}) as Record<string, unknown>;
   const [tolType, setTolType] = useState(str(initialTolerance.type) ?? "plusMinus");
   const initialPhotos = (initial.photos ?? { required: false, min: 0 }) as { required: boolean; min: number };
@@ -88,16 +79,10 @@ export function StepForm({
   return (
     <form
       {...getFormProps(form)}
-      ref={formRef}
       action={formAction}
       className="card space-y-4 p-4"
       data-testid="step-form"
       aria-labelledby={`${f}-h`}
-      onInput={(e) => {
-        const target = e.target as HTMLInputElement;
-        if (target.name === "step.key") keyTouched.current = true;
-        if (target.name === "step.title") followTitle(target.value);
-      }}
     >
       <input type="hidden" name="procedureId" value={procedureId} />
       <input type="hidden" name="number" value={number} />
@@ -120,7 +105,16 @@ export function StepForm({
           <SelectField formId={f} name={mark("step.signedBy")} label="Signed by" errors={errors} options={opts(SIGNER_ROLES, SIGNER_LABELS)} defaultValue={str(initial.signedBy) ?? "welder"} />
         )}
         <TextField formId={f} name={mark("step.title")} label="Title" errors={errors} defaultValue={str(initial.title)} className="sm:col-span-2" />
-        <TextField formId={f} name={mark("step.key")} label="Key" errors={errors} defaultValue={initial.key} hint="Stable name of the step across versions: lower-case letters, digits and dashes." />
+        {/* The key is the editor's: made from the title when the step is first saved, then kept for good. The
+            step schema wants one, so the form carries the one it has; the server decides which is stored. */}
+        <input type="hidden" name={mark("step.key")} value={initial.key} />
+        <p className="text-sm text-graphite-600 sm:col-span-2" data-testid="step-key">
+          {originalKey ? (
+            <>Step key <span className="figures font-semibold text-graphite-900">{originalKey}</span>: kept across versions, whatever the title becomes.</>
+          ) : (
+            <>The step key is made from the title when you add the step, and kept from then on.</>
+          )}
+        </p>
       </div>
 
       <div>
