@@ -29,7 +29,7 @@ import { AppError } from "@/lib/errors";
 import { assembleRecord, type JobParts, type Viewer } from "@/lib/jobs/assemble";
 import type { JobStateName } from "@/lib/jobs/labels";
 import type { InspectionView, JobRecord, MaterialView, NonconformanceView, PassView, PhotoView, QualificationSummary, SignOffView, WpsSummary } from "@/lib/jobs/record";
-import { toWpsRanges } from "@/app/api/wps/schema";
+import { toWpsRanges } from "@/lib/welding/wps-schema";
 import { currentQualification, type DbOrTx } from "@/db/queries/qualifications";
 import { deriveJobState } from "@/lib/jobs/state";
 

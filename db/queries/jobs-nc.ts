@@ -12,7 +12,7 @@ import { contentHash } from "@/lib/jobs/hash";
 import { DISPOSITION_LABELS, type DispositionName } from "@/lib/jobs/labels";
 import { verifySigningPin } from "@/db/queries/people";
 import { appendSignOff, assertJobOpen, guarded, loadRecord, logActivity, refreshJobState } from "./jobs-core";
-import { findStep } from "./jobs-steps";
+import { findStep } from "./jobs-lookup";
 
 export async function raiseNonconformance(
   ctx: ShopContext,

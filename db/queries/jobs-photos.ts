@@ -9,7 +9,7 @@ import { AppError } from "@/lib/errors";
 import { getObject, photoKeys, putObject } from "@/lib/storage";
 import { processPhoto } from "@/lib/storage/images";
 import { assertJobOpen, guarded, loadRecord, logActivity } from "./jobs-core";
-import { findStep } from "./jobs-steps";
+import { findStep } from "./jobs-lookup";
 
 async function existingUpload(shopId: string, idempotencyKey: string) {
   const [row] = await db()

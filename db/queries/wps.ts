@@ -14,7 +14,7 @@ import {
   type WpsProcess,
   type WpsState,
   type WpsStatus,
-} from "@/app/api/wps/schema";
+} from "@/lib/welding/wps-schema";
 import { db } from "@/lib/db";
 import { AppError } from "@/lib/errors";
 import type { WpsRanges } from "@/lib/welding";

@@ -2,7 +2,7 @@
 import type { ColumnDef } from "@tanstack/react-table";
 import Link from "next/link";
 import { DataTable } from "@/components/data-table";
-import type { WpsProcess, WpsState } from "@/app/api/wps/schema";
+import type { WpsProcess, WpsState } from "@/lib/welding/wps-schema";
 import { WpsStatusBadge } from "./badges";
 
 export type WpsListView = {

@@ -5,7 +5,7 @@ import "server-only";
 import { createHash } from "node:crypto";
 import { fileTypeFromBuffer } from "file-type";
 import sharp from "sharp";
-import { CERTIFICATE_MAX_BYTES, CERTIFICATE_TYPES } from "@/app/api/qualifications/schema";
+import { CERTIFICATE_MAX_BYTES, CERTIFICATE_TYPES } from "@/lib/welding/qualification-schema";
 import { AppError } from "@/lib/errors";
 
 const EXTENSIONS: Record<(typeof CERTIFICATE_TYPES)[number], string> = { "application/pdf": "pdf", "image/jpeg": "jpg", "image/png": "png" };

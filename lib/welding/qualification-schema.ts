@@ -1,7 +1,7 @@
 // Welder qualifications: the words, and the zod schemas the API and the lead's forms share. Pure.
 import { z } from "zod";
 import { CONTINUITY_CODES, parseIsoDate, type ContinuityCode, type ContinuityStatus } from "@/lib/welding";
-import { WPS_POSITIONS, WPS_PROCESSES } from "@/app/api/wps/schema";
+import { WPS_POSITIONS, WPS_PROCESSES } from "./wps-schema";
 
 export const CONTINUITY_STATUSES = ["current", "lapsing", "lapsed"] as const satisfies readonly ContinuityStatus[];
 
