@@ -1,5 +1,5 @@
 // One error type for everything a handler refuses on purpose; anything else is a 500 that is logged, never echoed.
-export const ERROR_STATUS = {
+const ERROR_STATUS = {
   bad_request: 400,
   unauthenticated: 401,
   forbidden: 403,
@@ -13,7 +13,7 @@ export const ERROR_STATUS = {
   unavailable: 503,
 } as const;
 
-export type ErrorCode = keyof typeof ERROR_STATUS;
+type ErrorCode = keyof typeof ERROR_STATUS;
 
 export class AppError extends Error {
   constructor(

@@ -9,10 +9,10 @@ import type { ListQuery } from "@/lib/procedures/forms";
 import { versionHash, type VersionBody } from "@/lib/procedures/hash";
 import { versionContentSchema, type VersionContent } from "@/lib/procedures/schema";
 
-export type VersionStatus = "draft" | "published" | "retired";
+type VersionStatus = "draft" | "published" | "retired";
 export type VersionSummary = { number: number; status: VersionStatus };
 
-export type ProcedureListRow = {
+type ProcedureListRow = {
   id: string;
   title: string;
   code: string;
@@ -21,7 +21,7 @@ export type ProcedureListRow = {
   versions: VersionSummary[];
 };
 
-export type VersionMeta = {
+type VersionMeta = {
   id: string;
   number: number;
   status: VersionStatus;
@@ -37,7 +37,7 @@ export type VersionMeta = {
   stepCount: number;
 };
 
-export type VersionDetail = Omit<VersionMeta, "stepCount"> & { procedureId: string; scope: string; code: string; content: VersionContent };
+type VersionDetail = Omit<VersionMeta, "stepCount"> & { procedureId: string; scope: string; code: string; content: VersionContent };
 
 const publisher = alias(user, "publisher");
 
@@ -158,45 +158,6 @@ export async function getVersion(shopId: string, procedureId: string, number: nu
   return row as VersionDetail;
 }
 
-// For jobs: the version a job pins, by its id. Another shop's version is reported missing.
-export async function getVersionById(shopId: string, versionId: string): Promise<VersionDetail> {
-  const [row] = await db()
-    .select(versionColumns)
-    .from(procedureVersion)
-    .leftJoin(user, eq(user.id, procedureVersion.authorId))
-    .leftJoin(publisher, eq(publisher.id, procedureVersion.publisherId))
-    .where(and(eq(procedureVersion.id, versionId), eq(procedureVersion.shopId, shopId)));
-  if (!row) throw new AppError("not_found", "Procedure version not found.");
-  return row as VersionDetail;
-}
-
-// For jobs: what a new job may pin (published versions only: drafts are unfinished, retired ones are out of use).
-export async function listPublishedVersions(shopId: string) {
-  return db()
-    .select({
-      versionId: procedureVersion.id,
-      procedureId: procedureVersion.procedureId,
-      number: procedureVersion.number,
-      title: procedureVersion.title,
-      code: procedureVersion.code,
-      contentHash: procedureVersion.contentHash,
-      publishedAt: procedureVersion.publishedAt,
-    })
-    .from(procedureVersion)
-    .where(and(eq(procedureVersion.shopId, shopId), eq(procedureVersion.status, "published")))
-    .orderBy(asc(sql`lower(${procedureVersion.title})`), desc(procedureVersion.number))
-    .limit(500);
-}
-
-// For jobs: refuses a version a new job must not pin.
-export async function assertPinnable(shopId: string, versionId: string) {
-  const v = await getVersionById(shopId, versionId);
-  if (v.status !== "published") {
-    throw new AppError("conflict", v.status === "retired" ? "That procedure version is retired: pick the published one." : "That version is a draft: publish it first.");
-  }
-  return v;
-}
-
 // --- Writing ------------------------------------------------------------------------------------------
 
 type Tx = Parameters<Parameters<ReturnType<typeof db>["transaction"]>[0]>[0];
@@ -261,7 +222,7 @@ async function everPublished(tx: Tx, procedureId: string) {
   return (row?.n ?? 0) > 0;
 }
 
-export function contentFields(issues: readonly { path: PropertyKey[]; message: string }[]): Record<string, string[]> {
+function contentFields(issues: readonly { path: PropertyKey[]; message: string }[]): Record<string, string[]> {
   const fields: Record<string, string[]> = {};
   for (const issue of issues) (fields[["content", ...issue.path].map(String).join(".")] ??= []).push(issue.message);
   return fields;

@@ -305,7 +305,7 @@ export async function recordProcessUse(
   return { lastUsedOn: row!.lastUsedOn };
 }
 
-export type QualificationCheck = {
+type QualificationCheck = {
   ok: boolean;
   /** A sentence for the welder and the record: who, which process, and why (or until when). */
   reason: string;

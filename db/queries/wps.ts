@@ -1,5 +1,5 @@
 import "server-only";
-import { and, desc, eq, max, sql, type SQL } from "drizzle-orm";
+import { and, desc, eq, sql, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { shopActivity, user, wps, wpsRevision } from "@/db/schema";
 import {
@@ -22,7 +22,7 @@ import type { WpsRanges } from "@/lib/welding";
 type Db = ReturnType<typeof db>;
 type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
 
-export type WpsListRow = {
+type WpsListRow = {
   id: string;
   reference: string;
   title: string;
@@ -53,7 +53,7 @@ export type RevisionSummary = {
   retiredAt: Date | null;
 };
 
-export type RevisionDetail = RevisionSummary & { wpsId: string; reference: string; content: WpsContent };
+type RevisionDetail = RevisionSummary & { wpsId: string; reference: string; content: WpsContent };
 
 const publisher = alias(user, "publisher");
 const retirer = alias(user, "retirer");
@@ -206,7 +206,7 @@ export async function getRevision(shopId: string, wpsId: string, number: number)
   return splitDetail(row);
 }
 
-export async function getRevisionById(shopId: string, revisionId: string): Promise<RevisionDetail> {
+async function getRevisionById(shopId: string, revisionId: string): Promise<RevisionDetail> {
   const [row] = await detailQuery(and(eq(wpsRevision.id, revisionId), eq(wpsRevision.shopId, shopId)));
   if (!row) throw new AppError("not_found", "WPS revision not found.");
   return splitDetail(row);
@@ -214,7 +214,7 @@ export async function getRevisionById(shopId: string, revisionId: string): Promi
 
 // --- For the jobs side: what a weld pass is checked against --------------------------------------------
 
-export type WpsForPass = {
+type WpsForPass = {
   wpsId: string;
   revisionId: string;
   reference: string;
@@ -454,10 +454,3 @@ export async function retireRevision(args: { shopId: string; wpsId: string; numb
   );
 }
 
-export async function latestRevisionNumber(shopId: string, wpsId: string): Promise<number | null> {
-  const [row] = await db()
-    .select({ n: max(wpsRevision.number) })
-    .from(wpsRevision)
-    .where(and(eq(wpsRevision.wpsId, wpsId), eq(wpsRevision.shopId, shopId)));
-  return row?.n ?? null;
-}

@@ -9,10 +9,10 @@ export const PROCEDURE_FILE_FORMAT = "gusset-procedure";
 export const PROCEDURE_FILE_VERSION = 1;
 export const PROCEDURE_FILE_MAX_BYTES = 1024 * 1024;
 export const PROCEDURE_FILE_SCHEMA_PATH = "/schemas/gusset-procedure-1.schema.json";
-export const PROCEDURE_FILE_EXTENSION = ".gusset-procedure.json";
+const PROCEDURE_FILE_EXTENSION = ".gusset-procedure.json";
 
 // Where an exported file came from. Informational: an import never trusts it, it only compares the hash.
-export const procedureFileSourceSchema = z
+const procedureFileSourceSchema = z
   .object({
     shop: z.string().max(200).optional(),
     procedureId: z.string().max(100).optional(),
@@ -45,8 +45,8 @@ export const procedureFileSchema = z
 
 export type ProcedureFile = z.output<typeof procedureFileSchema>;
 
-export type FileProblem = { path: string; where: string; message: string };
-export type FileParse =
+type FileProblem = { path: string; where: string; message: string };
+type FileParse =
   | { ok: true; file: ProcedureFile }
   | { ok: false; status: 400 | 413 | 422; message: string; problems: FileProblem[] };
 

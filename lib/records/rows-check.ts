@@ -4,7 +4,7 @@
 import { canonicalJson } from "@/lib/seal/canonical-json";
 import { STEP_CONTENT_SCHEMA } from "@/lib/jobs/content";
 
-export type SealedSignOff = { id: string; stepId: string | null; content: Record<string, unknown> };
+type SealedSignOff = { id: string; stepId: string | null; content: Record<string, unknown> };
 
 export type LiveRows = {
   steps: { id: string; title: string; value: Record<string, unknown> | null }[];
@@ -25,7 +25,7 @@ export type LiveRows = {
   inspections: { signOffId: string; criteria: string; observations: unknown; judged: string; decision: string; notes: string }[];
 };
 
-export type RowDifference = { signOffId: string; reason: string };
+type RowDifference = { signOffId: string; reason: string };
 
 const PASS_FIELDS = ["welderId", "process", "volts", "amps", "travelSpeedMmPerMin", "preheatC", "interpassC", "fillerLot", "heatInputKJPerMm"] as const;
 

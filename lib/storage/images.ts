@@ -6,14 +6,14 @@ import { fileTypeFromBuffer } from "file-type";
 import sharp, { type OutputInfo } from "sharp";
 import { AppError } from "@/lib/errors";
 
-export const ACCEPTED_TYPES = ["image/jpeg", "image/png", "image/webp", "image/avif"] as const;
+const ACCEPTED_TYPES = ["image/jpeg", "image/png", "image/webp", "image/avif"] as const;
 const HEIC_TYPES = new Set(["image/heic", "image/heif", "image/heic-sequence", "image/heif-sequence"]);
 const MAX_SIDE = 2560;
 const THUMB_SIDE = 360;
 // Decompression bombs: a small file that unpacks to gigapixels is refused before it is decoded.
 const MAX_PIXELS = 60_000_000;
 
-export type ProcessedPhoto = {
+type ProcessedPhoto = {
   main: Buffer;
   thumb: Buffer;
   width: number;
@@ -23,7 +23,7 @@ export type ProcessedPhoto = {
   contentType: "image/jpeg";
 };
 
-export async function sniffImageType(bytes: Buffer): Promise<string | null> {
+async function sniffImageType(bytes: Buffer): Promise<string | null> {
   const found = await fileTypeFromBuffer(bytes);
   return found?.mime ?? null;
 }

@@ -49,7 +49,7 @@ const mm = (label: string, max: number) =>
     .gt(0, { error: "Must be above 0 mm." })
     .max(max, { error: `Must be at most ${max} mm.` });
 
-export const qualificationFieldSchemas = {
+const qualificationFieldSchemas = {
   welderUserId: z.string({ error: "Choose the welder." }).trim().min(1, { error: "Choose the welder." }).max(64),
   process: z.enum(WPS_PROCESSES, { error: `Process is one of ${WPS_PROCESSES.join(", ")}.` }),
   positions: z

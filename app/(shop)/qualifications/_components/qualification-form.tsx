@@ -11,7 +11,7 @@ import { saveQualificationAction } from "../actions";
 type Input = z.input<typeof qualificationFormSchema>;
 type AnyField = FieldMetadata<string | number | undefined>;
 
-export type QualificationDefaults = {
+type QualificationDefaults = {
   id?: string;
   welderUserId?: string;
   process?: string;

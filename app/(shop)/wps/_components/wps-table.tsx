@@ -5,7 +5,7 @@ import { DataTable } from "@/components/data-table";
 import type { WpsProcess, WpsState } from "@/lib/welding/wps-schema";
 import { WpsStatusBadge } from "./badges";
 
-export type WpsListView = {
+type WpsListView = {
   id: string;
   reference: string;
   title: string;

@@ -7,7 +7,7 @@ import { attachNoticeMail, claimNotice, lapsingForNotices, releaseNotice, shopLe
 import { env } from "@/lib/env";
 import { mailHtml, sendMail } from "@/lib/mail";
 
-export type NoticeRun = { today: string; lapsing: number; sent: number; queued: number; alreadyNoticed: number };
+type NoticeRun = { today: string; lapsing: number; sent: number; queued: number; alreadyNoticed: number };
 
 export function noticeMail(q: LapsingForNotice, lead: { name: string }, appUrl: string) {
   const days = `${q.daysLeft} day${q.daysLeft === 1 ? "" : "s"}`;

@@ -11,7 +11,7 @@ import { AppError } from "@/lib/errors";
 const EXTENSIONS: Record<(typeof CERTIFICATE_TYPES)[number], string> = { "application/pdf": "pdf", "image/jpeg": "jpg", "image/png": "png" };
 const MAX_PIXELS = 60_000_000;
 
-export type PreparedCertificate = { bytes: Buffer; contentType: (typeof CERTIFICATE_TYPES)[number]; extension: string; sha256: string };
+type PreparedCertificate = { bytes: Buffer; contentType: (typeof CERTIFICATE_TYPES)[number]; extension: string; sha256: string };
 
 export async function prepareCertificate(input: Buffer): Promise<PreparedCertificate> {
   if (input.length === 0) throw new AppError("bad_request", "The file is empty.", { file: ["Choose the certificate file."] });
