@@ -3,7 +3,7 @@ import { and, asc, count, desc, eq, ilike, ne, or, sql, type SQL } from "drizzle
 import { alias } from "drizzle-orm/pg-core";
 import { procedure, procedureVersion, shopActivity, user } from "@/db/schema";
 import { db } from "@/lib/db";
-import { AppError } from "@/lib/errors";
+import { AppError, withDatabaseRefusals } from "@/lib/errors";
 import { publishReadiness } from "@/lib/procedures/checks";
 import type { ListQuery } from "@/lib/procedures/forms";
 import { versionHash, type VersionBody } from "@/lib/procedures/hash";
@@ -162,23 +162,14 @@ export async function getVersion(shopId: string, procedureId: string, number: nu
 
 type Tx = Parameters<Parameters<ReturnType<typeof db>["transaction"]>[0]>[0];
 
-function pgCode(error: unknown): { code?: string; constraint?: string } {
-  const e = error as { code?: string; constraint?: string; cause?: { code?: string; constraint?: string } };
-  return { code: e?.code ?? e?.cause?.code, constraint: e?.constraint ?? e?.cause?.constraint };
-}
-
 // The database rules are the last word; their refusals become 409s, never 500s.
-async function guarded<T>(run: () => Promise<T>): Promise<T> {
-  try {
-    return await run();
-  } catch (error) {
-    if (error instanceof AppError) throw error;
-    const { code, constraint } = pgCode(error);
-    if (code === "23001") throw new AppError("conflict", "Published and retired versions never change; start a new version instead.");
-    if (code === "23505" && constraint === "procedure_version_one_draft_idx") throw new AppError("conflict", "This procedure already has a draft: finish or discard it first.");
-    if (code === "23505" && constraint === "procedure_version_number_idx") throw new AppError("conflict", "Someone created a version at the same moment; reload and try again.");
-    throw error;
-  }
+function guarded<T>(run: () => Promise<T>): Promise<T> {
+  return withDatabaseRefusals(run, ({ code, constraint }) => {
+    if (code === "23001") return new AppError("conflict", "Published and retired versions never change; start a new version instead.");
+    if (code === "23505" && constraint === "procedure_version_one_draft_idx") return new AppError("conflict", "This procedure already has a draft: finish or discard it first.");
+    if (code === "23505" && constraint === "procedure_version_number_idx") return new AppError("conflict", "Someone created a version at the same moment; reload and try again.");
+    return undefined;
+  });
 }
 
 async function lockProcedure(tx: Tx, shopId: string, procedureId: string) {

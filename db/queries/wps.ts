@@ -16,7 +16,7 @@ import {
   type WpsStatus,
 } from "@/lib/welding/wps-schema";
 import { db } from "@/lib/db";
-import { AppError } from "@/lib/errors";
+import { AppError, withDatabaseRefusals } from "@/lib/errors";
 import type { WpsRanges } from "@/lib/welding";
 
 type Db = ReturnType<typeof db>;
@@ -272,28 +272,19 @@ export async function listPublishedWps(shopId: string, process?: WpsProcess) {
 
 // --- Writing ------------------------------------------------------------------------------------------
 
-function pgError(error: unknown): { code?: string; constraint?: string } {
-  const e = error as { code?: string; constraint?: string; cause?: { code?: string; constraint?: string } };
-  return { code: e?.code ?? e?.cause?.code, constraint: e?.constraint ?? e?.cause?.constraint };
-}
-
 // The database rules are the last word; their refusals become 409s, never 500s.
-async function guarded<T>(run: () => Promise<T>): Promise<T> {
-  try {
-    return await run();
-  } catch (error) {
-    if (error instanceof AppError) throw error;
-    const { code, constraint } = pgError(error);
-    if (code === "23000") throw new AppError("conflict", "A published or retired WPS revision never changes; start a new revision instead.");
+function guarded<T>(run: () => Promise<T>): Promise<T> {
+  return withDatabaseRefusals(run, ({ code, constraint }) => {
+    if (code === "23000") return new AppError("conflict", "A published or retired WPS revision never changes; start a new revision instead.");
     if (code === "23505" && constraint === "wps_shop_reference_idx") {
-      throw new AppError("conflict", "The shop already has a WPS with that reference.", { reference: ["Already in the library: pick another reference."] });
+      return new AppError("conflict", "The shop already has a WPS with that reference.", { reference: ["Already in the library: pick another reference."] });
     }
-    if (code === "23505" && constraint === "wps_revision_one_draft_idx") throw new AppError("conflict", "This WPS already has a draft revision: finish it first.");
+    if (code === "23505" && constraint === "wps_revision_one_draft_idx") return new AppError("conflict", "This WPS already has a draft revision: finish it first.");
     if (code === "23505" && (constraint === "wps_revision_number_idx" || constraint === "wps_revision_one_published_idx")) {
-      throw new AppError("conflict", "Someone changed this WPS at the same moment; reload and try again.");
+      return new AppError("conflict", "Someone changed this WPS at the same moment; reload and try again.");
     }
-    throw error;
-  }
+    return undefined;
+  });
 }
 
 async function lockWps(tx: Tx, shopId: string, wpsId: string) {
