@@ -30,7 +30,7 @@ function measure(env: NodeJS.ProcessEnv): Measured {
 const TABLES = ["job", "job_step", "job_assignment", "nonconformance", "sign_off", "nonconformance_disposition", "weld_pass", "weld_inspection", "job_activity"];
 const MAPPED_IDS = new Set(["id", "job_id", "step_id", "sign_off_id", "nonconformance_id", "amends_sign_off_id"]);
 
-export async function generateJobs(url: string, shopSlug: string) {
+async function generateJobs(url: string, shopSlug: string) {
   const client = new pg.Client({ connectionString: url });
   await client.connect();
   try {

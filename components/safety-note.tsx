@@ -1,6 +1,4 @@
-// Shown beside every calculator and on the traveller.
-export const SAFETY_NOTE =
-  "Results support, and never replace, the vehicle maker's specifications, local codes and qualified or licensed practice.";
+import { SAFETY_NOTE } from "@/lib/safety";
 
 export function SafetyNote({ className = "" }: { className?: string }) {
   return (

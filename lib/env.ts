@@ -3,7 +3,7 @@ import { z } from "zod";
 
 const flag = z.enum(["on", "off"]);
 
-export const envSchema = z.object({
+const envSchema = z.object({
   NODE_ENV: z.enum(["development", "production", "test"]).default("production"),
   DATABASE_URL: z.string().url({ message: "DATABASE_URL must be a postgres:// URL" }),
   APP_URL: z.string().url().default("http://127.0.0.1:3000"),
@@ -30,7 +30,7 @@ export const envSchema = z.object({
   S3_FORCE_PATH_STYLE: flag.default("on"),
 });
 
-export type Env = z.infer<typeof envSchema>;
+type Env = z.infer<typeof envSchema>;
 
 let cached: Env | undefined;
 

@@ -1,5 +1,5 @@
 // One error type for everything a handler refuses on purpose; anything else is a 500 that is logged, never echoed.
-export const ERROR_STATUS = {
+const ERROR_STATUS = {
   bad_request: 400,
   unauthenticated: 401,
   forbidden: 403,
@@ -13,7 +13,7 @@ export const ERROR_STATUS = {
   unavailable: 503,
 } as const;
 
-export type ErrorCode = keyof typeof ERROR_STATUS;
+type ErrorCode = keyof typeof ERROR_STATUS;
 
 export class AppError extends Error {
   constructor(
@@ -70,4 +70,24 @@ export function isDatabaseUnavailable(error: unknown): boolean {
     if (Array.isArray(errors)) queue.push(...errors);
   }
   return false;
+}
+
+/** The SQLSTATE and constraint of a database refusal, thrown bare by pg or wrapped by Drizzle (`cause`). */
+export function databaseRefusal(error: unknown): { code?: string; constraint?: string } {
+  const e = error as { code?: unknown; constraint?: unknown; cause?: { code?: unknown; constraint?: unknown } };
+  const text = (v: unknown) => (typeof v === "string" ? v : undefined);
+  return { code: text(e?.code) ?? text(e?.cause?.code), constraint: text(e?.constraint) ?? text(e?.cause?.constraint) };
+}
+
+/**
+ * Runs a write whose last word belongs to the database rules: a refusal that `explain` recognises becomes that
+ * AppError (a 409 with a reason), never a 500. AppErrors thrown by the write itself pass through unchanged.
+ */
+export async function withDatabaseRefusals<T>(run: () => Promise<T>, explain: (refusal: { code?: string; constraint?: string }) => AppError | undefined): Promise<T> {
+  try {
+    return await run();
+  } catch (error) {
+    if (error instanceof AppError) throw error;
+    throw explain(databaseRefusal(error)) ?? error;
+  }
 }

@@ -1,9 +1,9 @@
 import { can, type Action } from "@/lib/authz";
 
-export type NavItem = { href: string; label: string; action: Action; roles?: string[]; localMailOnly?: boolean };
+type NavItem = { href: string; label: string; action: Action; roles?: string[]; localMailOnly?: boolean };
 
 // Role-aware navigation: a person sees the desks of every role they hold, and the tools their roles may use.
-export const NAV: NavItem[] = [
+const NAV: NavItem[] = [
   { href: "/home/lead", label: "Lead desk", action: "people:manage", roles: ["lead"] },
   { href: "/home/welder", label: "Bench", action: "step:sign", roles: ["welder"] },
   { href: "/home/inspector", label: "Inspection desk", action: "inspection:sign", roles: ["inspector"] },

@@ -21,7 +21,7 @@ export function contentSecurityPolicy(nonce: string, opts: { dev: boolean; https
 }
 
 // The camera is for the two screens that read it: the runner's photo capture and /scan's QR reader.
-export function usesCamera(pathname: string): boolean {
+function usesCamera(pathname: string): boolean {
   return pathname === "/scan" || pathname.startsWith("/scan/") || pathname.startsWith("/run/");
 }
 

@@ -2,7 +2,7 @@
 // Pure and JSON-serialisable on purpose: a job's geometry step can keep a before/after state as it is and
 // rebuild the request (or the screen) from it later. Lengths are text in the state's own unit system.
 import { z } from "zod";
-import { steeringRequestSchema, type SteeringRequest } from "@/app/api/calc/steering/schema";
+import { steeringRequestSchema, type SteeringRequest } from "@/lib/calc/steering-request";
 import { convertText, fieldErrors, numberText, optionalNumberText, optionalQuantityText, quantityText, trimNumber, type FieldErrors, type UnitSystem } from "./values";
 import { LIMITS } from "@/lib/geometry";
 import { fromSI, preferredUnit } from "@/lib/units";

@@ -3,7 +3,7 @@ import { and, count, desc, eq, gte, like, lt, sql } from "drizzle-orm";
 import { job } from "@/db/schema";
 import { db } from "@/lib/db";
 
-export type AuditQuery = { q?: string; from?: string; to?: string; page: number; pageSize: number };
+type AuditQuery = { q?: string; from?: string; to?: string; page: number; pageSize: number };
 
 // Released jobs only: the finished records an auditor checks. Search matches number, VIN, axle tag, customer.
 export async function searchReleased(shopId: string, q: AuditQuery) {

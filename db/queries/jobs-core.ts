@@ -31,7 +31,7 @@ import { assembleRecord, type JobParts, type Viewer } from "@/lib/jobs/assemble"
 import type { JobStateName } from "@/lib/jobs/labels";
 import type { JobWeldMap } from "@/lib/weld-map";
 import type { InspectionView, RepairView, WeldMapView, JobRecord, MaterialView, NonconformanceView, PassView, PhotoView, QualificationSummary, SignOffView, WpsSummary } from "@/lib/jobs/record";
-import { toWpsRanges } from "@/app/api/wps/schema";
+import { toWpsRanges } from "@/lib/welding/wps-schema";
 import { currentQualification, type DbOrTx } from "@/db/queries/qualifications";
 import { deriveJobState } from "@/lib/jobs/state";
 

@@ -15,7 +15,7 @@ import { shopLeads } from "@/db/queries/qualifications";
 import { env } from "@/lib/env";
 import { mailHtml, sendMail } from "@/lib/mail";
 import { appendSignOff, assertJobOpen, guarded, loadRecord, logActivity, refreshJobState } from "./jobs-core";
-import { findStep } from "./jobs-steps";
+import { findStep } from "./jobs-lookup";
 
 export async function raiseNonconformance(
   ctx: ShopContext,

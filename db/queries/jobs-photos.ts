@@ -11,7 +11,7 @@ import { getObject, photoKeys, putObject } from "@/lib/storage";
 import { processPhoto } from "@/lib/storage/images";
 import type { JobWeldMap } from "@/lib/weld-map";
 import { assertJobOpen, guarded, loadRecord, logActivity } from "./jobs-core";
-import { findStep } from "./jobs-steps";
+import { findStep } from "./jobs-lookup";
 
 async function existingUpload(shopId: string, idempotencyKey: string) {
   const [row] = await db()

@@ -5,7 +5,6 @@ import "server-only";
 import { and, eq, sql } from "drizzle-orm";
 import { jobStep, weldPass, weldPassOverride, weldRepair } from "@/db/schema";
 import { currentQualification, recordProcessUse } from "@/db/queries/qualifications";
-import { verifySigningPin } from "@/db/queries/people";
 import type { ShopContext } from "@/lib/auth/context";
 import { db } from "@/lib/db";
 import { AppError } from "@/lib/errors";
@@ -26,13 +25,8 @@ import type { HandOver, RepairBody, WeldPassBody } from "@/lib/jobs/schemas";
 import { signerFor, tabletHolder } from "./jobs-handover";
 import { checkPassAgainstWps, passHeatInput } from "@/lib/welding";
 import { appendSignOff, assertJobOpen, guarded, loadRecord, logActivity, refreshJobState, type Exec } from "./jobs-core";
+import { findStep, verifyPinLogged } from "./jobs-lookup";
 import { mailJointReady } from "./jobs-welds";
-
-export function findStep(record: JobRecord, stepId: string): StepView {
-  const step = record.steps.find((s) => s.id === stepId);
-  if (!step) throw new AppError("not_found", "Step not found on this job.");
-  return step;
-}
 
 const when = (iso: string | null) => (iso ? `${iso.slice(0, 16).replace("T", " ")} UTC` : "");
 
@@ -190,20 +184,6 @@ function signedContent(record: JobRecord, step: StepView, meaning: string, value
     amends,
     round: joint ? { number: joint.round, repairOf } : undefined,
   });
-}
-
-/** A wrong PIN is counted by verifySigningPin; the attempt is also written to the job's activity log. */
-export async function verifyPinLogged(ctx: ShopContext, jobId: string, stepId: string | null, pin: string) {
-  try {
-    await verifySigningPin({ shopId: ctx.shopId, userId: ctx.userId, pin });
-  } catch (error) {
-    if (error instanceof AppError && (error.code === "forbidden" || error.code === "locked") && error.fields?.pin) {
-      await logActivity(db(), { shopId: ctx.shopId, jobId, actorId: ctx.userId, action: "sign.refused", stepId, detail: { reason: "wrong PIN", locked: error.code === "locked" } });
-    } else if (error instanceof AppError && error.code === "locked") {
-      await logActivity(db(), { shopId: ctx.shopId, jobId, actorId: ctx.userId, action: "sign.refused", stepId, detail: { reason: "signing locked" } });
-    }
-    throw error;
-  }
 }
 
 export async function signStep(holder: ShopContext, jobId: string, stepId: string, body: { pin: string; baseVersion: number; handOver?: HandOver }) {

@@ -18,7 +18,7 @@ import { contentHash } from "@/lib/seal";
 import { judgeVisual, visualCriteriaLabel, type VisualVerdict } from "@/lib/welding";
 import { appendSignOff, assertJobOpen, guarded, loadRecord, logActivity, refreshJobState } from "./jobs-core";
 import { signerFor, tabletHolder } from "./jobs-handover";
-import { findStep, verifyPinLogged } from "./jobs-steps";
+import { findStep, verifyPinLogged } from "./jobs-lookup";
 
 function weldStepOf(record: JobRecord, stepId: string): StepView & { joint: NonNullable<StepView["joint"]> } {
   const step = findStep(record, stepId);

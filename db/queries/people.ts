@@ -8,9 +8,9 @@ import { hashPin, pinMatches, PIN_MAX_FAILURES } from "@/lib/auth/pin";
 import { db } from "@/lib/db";
 import { AppError } from "@/lib/errors";
 
-export const INVITATION_DAYS = 7;
+const INVITATION_DAYS = 7;
 
-export type MemberRow = {
+type MemberRow = {
   membershipId: string;
   userId: string;
   name: string;
@@ -110,11 +110,6 @@ export async function findInvitation(token: string) {
   if (!row) return null;
   const usable = !row.acceptedAt && !row.revokedAt && row.expiresAt.getTime() > Date.now();
   return { ...row, usable };
-}
-
-export async function userIdByEmail(email: string) {
-  const [row] = await db().select({ id: user.id }).from(user).where(eq(user.email, email.toLowerCase())).limit(1);
-  return row?.id ?? null;
 }
 
 // Accepting creates the account when the address has none yet (password hashed by better-auth's own hasher).

@@ -3,17 +3,17 @@ import { and, asc, count, desc, eq, ilike, ne, or, sql, type SQL } from "drizzle
 import { alias } from "drizzle-orm/pg-core";
 import { procedure, procedureImage, procedureVersion, shopActivity, user } from "@/db/schema";
 import { db } from "@/lib/db";
-import { AppError } from "@/lib/errors";
+import { AppError, withDatabaseRefusals } from "@/lib/errors";
 import { publishReadiness } from "@/lib/procedures/checks";
 import type { ListQuery } from "@/lib/procedures/forms";
 import { versionHash, type VersionBody } from "@/lib/procedures/hash";
 import { versionContentSchema, weldJointIds, type VersionContent } from "@/lib/procedures/schema";
 import { pruneWeldMap } from "@/lib/weld-map";
 
-export type VersionStatus = "draft" | "published" | "retired";
+type VersionStatus = "draft" | "published" | "retired";
 export type VersionSummary = { number: number; status: VersionStatus };
 
-export type ProcedureListRow = {
+type ProcedureListRow = {
   id: string;
   title: string;
   code: string;
@@ -22,7 +22,7 @@ export type ProcedureListRow = {
   versions: VersionSummary[];
 };
 
-export type VersionMeta = {
+type VersionMeta = {
   id: string;
   number: number;
   status: VersionStatus;
@@ -38,7 +38,7 @@ export type VersionMeta = {
   stepCount: number;
 };
 
-export type VersionDetail = Omit<VersionMeta, "stepCount"> & { procedureId: string; scope: string; code: string; content: VersionContent };
+type VersionDetail = Omit<VersionMeta, "stepCount"> & { procedureId: string; scope: string; code: string; content: VersionContent };
 
 const publisher = alias(user, "publisher");
 
@@ -159,66 +159,18 @@ export async function getVersion(shopId: string, procedureId: string, number: nu
   return row as VersionDetail;
 }
 
-// For jobs: the version a job pins, by its id. Another shop's version is reported missing.
-export async function getVersionById(shopId: string, versionId: string): Promise<VersionDetail> {
-  const [row] = await db()
-    .select(versionColumns)
-    .from(procedureVersion)
-    .leftJoin(user, eq(user.id, procedureVersion.authorId))
-    .leftJoin(publisher, eq(publisher.id, procedureVersion.publisherId))
-    .where(and(eq(procedureVersion.id, versionId), eq(procedureVersion.shopId, shopId)));
-  if (!row) throw new AppError("not_found", "Procedure version not found.");
-  return row as VersionDetail;
-}
-
-// For jobs: what a new job may pin (published versions only: drafts are unfinished, retired ones are out of use).
-export async function listPublishedVersions(shopId: string) {
-  return db()
-    .select({
-      versionId: procedureVersion.id,
-      procedureId: procedureVersion.procedureId,
-      number: procedureVersion.number,
-      title: procedureVersion.title,
-      code: procedureVersion.code,
-      contentHash: procedureVersion.contentHash,
-      publishedAt: procedureVersion.publishedAt,
-    })
-    .from(procedureVersion)
-    .where(and(eq(procedureVersion.shopId, shopId), eq(procedureVersion.status, "published")))
-    .orderBy(asc(sql`lower(${procedureVersion.title})`), desc(procedureVersion.number))
-    .limit(500);
-}
-
-// For jobs: refuses a version a new job must not pin.
-export async function assertPinnable(shopId: string, versionId: string) {
-  const v = await getVersionById(shopId, versionId);
-  if (v.status !== "published") {
-    throw new AppError("conflict", v.status === "retired" ? "That procedure version is retired: pick the published one." : "That version is a draft: publish it first.");
-  }
-  return v;
-}
-
 // --- Writing ------------------------------------------------------------------------------------------
 
 type Tx = Parameters<Parameters<ReturnType<typeof db>["transaction"]>[0]>[0];
 
-function pgCode(error: unknown): { code?: string; constraint?: string } {
-  const e = error as { code?: string; constraint?: string; cause?: { code?: string; constraint?: string } };
-  return { code: e?.code ?? e?.cause?.code, constraint: e?.constraint ?? e?.cause?.constraint };
-}
-
 // The database rules are the last word; their refusals become 409s, never 500s.
-async function guarded<T>(run: () => Promise<T>): Promise<T> {
-  try {
-    return await run();
-  } catch (error) {
-    if (error instanceof AppError) throw error;
-    const { code, constraint } = pgCode(error);
-    if (code === "23001") throw new AppError("conflict", "Published and retired versions never change; start a new version instead.");
-    if (code === "23505" && constraint === "procedure_version_one_draft_idx") throw new AppError("conflict", "This procedure already has a draft: finish or discard it first.");
-    if (code === "23505" && constraint === "procedure_version_number_idx") throw new AppError("conflict", "Someone created a version at the same moment; reload and try again.");
-    throw error;
-  }
+function guarded<T>(run: () => Promise<T>): Promise<T> {
+  return withDatabaseRefusals(run, ({ code, constraint }) => {
+    if (code === "23001") return new AppError("conflict", "Published and retired versions never change; start a new version instead.");
+    if (code === "23505" && constraint === "procedure_version_one_draft_idx") return new AppError("conflict", "This procedure already has a draft: finish or discard it first.");
+    if (code === "23505" && constraint === "procedure_version_number_idx") return new AppError("conflict", "Someone created a version at the same moment; reload and try again.");
+    return undefined;
+  });
 }
 
 async function lockProcedure(tx: Tx, shopId: string, procedureId: string) {
@@ -262,7 +214,7 @@ async function everPublished(tx: Tx, procedureId: string) {
   return (row?.n ?? 0) > 0;
 }
 
-export function contentFields(issues: readonly { path: PropertyKey[]; message: string }[]): Record<string, string[]> {
+function contentFields(issues: readonly { path: PropertyKey[]; message: string }[]): Record<string, string[]> {
   const fields: Record<string, string[]> = {};
   for (const issue of issues) (fields[["content", ...issue.path].map(String).join(".")] ??= []).push(issue.message);
   return fields;

@@ -1,8 +1,8 @@
 import "server-only";
 import { and, asc, eq, isNull, sql, type SQL } from "drizzle-orm";
 import { membership, qualificationNotice, shop, shopActivity, user, welderProcessUse, welderQualification, wps, wpsRevision } from "@/db/schema";
-import { CODE_LABELS, rangeIssues, todayIso, type QualificationCreate, type QualificationPatch } from "@/app/api/qualifications/schema";
-import { WPS_PROCESSES, type WpsPosition, type WpsProcess } from "@/app/api/wps/schema";
+import { CODE_LABELS, rangeIssues, todayIso, type QualificationCreate, type QualificationPatch } from "@/lib/welding/qualification-schema";
+import { WPS_PROCESSES, type WpsPosition, type WpsProcess } from "@/lib/welding/wps-schema";
 import { db } from "@/lib/db";
 import { AppError } from "@/lib/errors";
 import { continuity, LAPSING_WINDOW_DAYS, parseIsoDate, type ContinuityCode, type ContinuityResult, type ContinuityStatus } from "@/lib/welding";
@@ -299,7 +299,7 @@ export async function recordProcessUse(
   return { lastUsedOn: row!.lastUsedOn };
 }
 
-export type QualificationCheck = {
+type QualificationCheck = {
   ok: boolean;
   /** A sentence for the welder and the record: who, which process, and why (or until when). */
   reason: string;

@@ -23,7 +23,7 @@ async function run<T extends Record<string, unknown>>(query: SQL): Promise<{ row
   });
 }
 
-export type QualityFilter = {
+type QualityFilter = {
   shopId: string;
   from?: string | undefined;
   to?: string | undefined;

@@ -48,7 +48,7 @@ export async function appendToChain(tx: Tx, signOffId: string): Promise<{ seq: n
   return { seq, hash };
 }
 
-export type Integrity = {
+type Integrity = {
   intact: boolean;
   entries: number;
   seal: string | null;
@@ -157,7 +157,7 @@ export async function jobIdForToken(token: string): Promise<{ jobId: string; sho
   return row ?? null;
 }
 
-export type PublicVerification = {
+type PublicVerification = {
   jobNumber: string;
   /** the tag on the axle housing and the VIN's last 6, so a traveller moved to another housing shows it */
   axleTag: string;

@@ -4,7 +4,7 @@ import { membership, shop, shopActivity, user } from "@/db/schema";
 import { db } from "@/lib/db";
 import { AppError } from "@/lib/errors";
 
-export type ArchiveAddress = {
+type ArchiveAddress = {
   /** the address a lead set, or null */
   email: string | null;
   /** where release seals go now: the set address, else the shop's active leads */

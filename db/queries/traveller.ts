@@ -16,7 +16,7 @@ import { procedureImageForServing } from "./procedure-images";
 import { shownIntegrity, tokenForJob, verifyJobRecord } from "./records";
 
 // The QR is scanned by other devices, so it carries the public address, never this computer's loopback one.
-export function verifyUrlFor(token: string) {
+function verifyUrlFor(token: string) {
   return `${publicBaseUrl()}/verify/${token}`;
 }
 

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, desc, eq, max, sql, type SQL } from "drizzle-orm";
+import { and, desc, eq, sql, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { shopActivity, user, wps, wpsRevision } from "@/db/schema";
 import {
@@ -14,15 +14,15 @@ import {
   type WpsProcess,
   type WpsState,
   type WpsStatus,
-} from "@/app/api/wps/schema";
+} from "@/lib/welding/wps-schema";
 import { db } from "@/lib/db";
-import { AppError } from "@/lib/errors";
+import { AppError, withDatabaseRefusals } from "@/lib/errors";
 import type { WpsRanges } from "@/lib/welding";
 
 type Db = ReturnType<typeof db>;
 type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
 
-export type WpsListRow = {
+type WpsListRow = {
   id: string;
   reference: string;
   title: string;
@@ -53,7 +53,7 @@ export type RevisionSummary = {
   retiredAt: Date | null;
 };
 
-export type RevisionDetail = RevisionSummary & { wpsId: string; reference: string; content: WpsContent };
+type RevisionDetail = RevisionSummary & { wpsId: string; reference: string; content: WpsContent };
 
 const publisher = alias(user, "publisher");
 const retirer = alias(user, "retirer");
@@ -206,7 +206,7 @@ export async function getRevision(shopId: string, wpsId: string, number: number)
   return splitDetail(row);
 }
 
-export async function getRevisionById(shopId: string, revisionId: string): Promise<RevisionDetail> {
+async function getRevisionById(shopId: string, revisionId: string): Promise<RevisionDetail> {
   const [row] = await detailQuery(and(eq(wpsRevision.id, revisionId), eq(wpsRevision.shopId, shopId)));
   if (!row) throw new AppError("not_found", "WPS revision not found.");
   return splitDetail(row);
@@ -214,7 +214,7 @@ export async function getRevisionById(shopId: string, revisionId: string): Promi
 
 // --- For the jobs side: what a weld pass is checked against --------------------------------------------
 
-export type WpsForPass = {
+type WpsForPass = {
   wpsId: string;
   revisionId: string;
   reference: string;
@@ -272,28 +272,19 @@ export async function listPublishedWps(shopId: string, process?: WpsProcess) {
 
 // --- Writing ------------------------------------------------------------------------------------------
 
-function pgError(error: unknown): { code?: string; constraint?: string } {
-  const e = error as { code?: string; constraint?: string; cause?: { code?: string; constraint?: string } };
-  return { code: e?.code ?? e?.cause?.code, constraint: e?.constraint ?? e?.cause?.constraint };
-}
-
 // The database rules are the last word; their refusals become 409s, never 500s.
-async function guarded<T>(run: () => Promise<T>): Promise<T> {
-  try {
-    return await run();
-  } catch (error) {
-    if (error instanceof AppError) throw error;
-    const { code, constraint } = pgError(error);
-    if (code === "23000") throw new AppError("conflict", "A published or retired WPS revision never changes; start a new revision instead.");
+function guarded<T>(run: () => Promise<T>): Promise<T> {
+  return withDatabaseRefusals(run, ({ code, constraint }) => {
+    if (code === "23000") return new AppError("conflict", "A published or retired WPS revision never changes; start a new revision instead.");
     if (code === "23505" && constraint === "wps_shop_reference_idx") {
-      throw new AppError("conflict", "The shop already has a WPS with that reference.", { reference: ["Already in the library: pick another reference."] });
+      return new AppError("conflict", "The shop already has a WPS with that reference.", { reference: ["Already in the library: pick another reference."] });
     }
-    if (code === "23505" && constraint === "wps_revision_one_draft_idx") throw new AppError("conflict", "This WPS already has a draft revision: finish it first.");
+    if (code === "23505" && constraint === "wps_revision_one_draft_idx") return new AppError("conflict", "This WPS already has a draft revision: finish it first.");
     if (code === "23505" && (constraint === "wps_revision_number_idx" || constraint === "wps_revision_one_published_idx")) {
-      throw new AppError("conflict", "Someone changed this WPS at the same moment; reload and try again.");
+      return new AppError("conflict", "Someone changed this WPS at the same moment; reload and try again.");
     }
-    throw error;
-  }
+    return undefined;
+  });
 }
 
 async function lockWps(tx: Tx, shopId: string, wpsId: string) {
@@ -454,10 +445,3 @@ export async function retireRevision(args: { shopId: string; wpsId: string; numb
   );
 }
 
-export async function latestRevisionNumber(shopId: string, wpsId: string): Promise<number | null> {
-  const [row] = await db()
-    .select({ n: max(wpsRevision.number) })
-    .from(wpsRevision)
-    .where(and(eq(wpsRevision.wpsId, wpsId), eq(wpsRevision.shopId, shopId)));
-  return row?.n ?? null;
-}

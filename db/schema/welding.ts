@@ -3,7 +3,7 @@
 // revision never changes: db/sql/030-welding.sql refuses it for every role, superuser included.
 import { sql } from "drizzle-orm";
 import { check, date, doublePrecision, index, integer, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
-import type { WpsPosition, WpsProcess, WpsStatus } from "@/app/api/wps/schema";
+import type { WpsPosition, WpsProcess, WpsStatus } from "@/lib/welding/wps-schema";
 import { user } from "./auth";
 import { mailOutbox, shop } from "./shops";
 

@@ -21,7 +21,7 @@ import { recordEntryFor } from "@/lib/records/entry";
 import { chainHash, contentHash, GENESIS_HASH } from "@/lib/seal";
 import { vinCheckDigit } from "@/lib/vin";
 import { checkPassAgainstWps, heatInput, judgeVisual, type VisualObservations, type WpsRanges } from "@/lib/welding";
-import { toWpsRanges } from "@/app/api/wps/schema";
+import { toWpsRanges } from "@/lib/welding/wps-schema";
 import type { SeedPhotoStore } from "./photos";
 
 type SeedDb = NodePgDatabase<typeof schema> | Parameters<Parameters<NodePgDatabase<typeof schema>["transaction"]>[0]>[0];

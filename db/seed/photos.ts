@@ -7,7 +7,7 @@ import sharp from "sharp";
 
 export type SeedStorage = { endpoint?: string | undefined; region: string; bucket: string; accessKeyId: string; secretAccessKey: string; forcePathStyle: boolean };
 
-export type StoredSeedPhoto = { key: string; thumbKey: string; sha256: string; size: number; width: number; height: number; contentType: "image/jpeg"; originalType: string; originalSize: number };
+type StoredSeedPhoto = { key: string; thumbKey: string; sha256: string; size: number; width: number; height: number; contentType: "image/jpeg"; originalType: string; originalSize: number };
 
 /** Storage settings from the environment the app reads (lib/env.ts); null when no object store is configured. */
 export function seedStorageFromEnv(env: NodeJS.ProcessEnv): SeedStorage | null {

@@ -16,7 +16,7 @@ type SeedDb = NodePgDatabase<typeof schema> | Parameters<Parameters<NodePgDataba
 const { procedure, procedureImage, procedureVersion } = schema;
 const DAY = 86_400_000;
 
-export const HISTORY_TITLE = "Visual inspection of bracket welds";
+const HISTORY_TITLE = "Visual inspection of bracket welds";
 const HISTORY_SCOPE =
   "Visual inspection of fillet welds joining brackets to axle tubes and frames, joint by joint, before coating or reassembly.\n\n" +
   "This procedure supports, and never replaces, the vehicle maker's specifications, local codes and qualified or licensed practice.";

@@ -5,7 +5,7 @@
 import { and, eq, inArray } from "drizzle-orm";
 import type { NodePgDatabase } from "drizzle-orm/node-postgres";
 import * as schema from "@/db/schema";
-import { EMPTY_CONTENT, type WpsContent, type WpsProcess } from "@/app/api/wps/schema";
+import { EMPTY_CONTENT, type WpsContent, type WpsProcess } from "@/lib/welding/wps-schema";
 import { addDays, addMonthsClamped } from "@/lib/welding/continuity";
 
 type SeedDb = NodePgDatabase<typeof schema> | Parameters<Parameters<NodePgDatabase<typeof schema>["transaction"]>[0]>[0];

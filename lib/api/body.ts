@@ -81,7 +81,7 @@ export function controlCharacterFields(value: unknown): Record<string, string[]>
   return fields;
 }
 
-export function assertNoControlCharacters(value: unknown): void {
+function assertNoControlCharacters(value: unknown): void {
   const fields = controlCharacterFields(value);
   if (fields) throw new AppError("bad_request", "Some text holds an invisible control character; nothing was saved.", fields);
 }

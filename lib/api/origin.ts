@@ -41,7 +41,7 @@ export function sameOriginRequest(f: OriginFacts): boolean {
   return true;
 }
 
-export function originFacts(req: Request, appUrl: string | null = process.env.APP_URL ?? null): OriginFacts {
+function originFacts(req: Request, appUrl: string | null = process.env.APP_URL ?? null): OriginFacts {
   const forwarded = req.headers.get("x-forwarded-proto")?.split(",")[0]?.trim().toLowerCase();
   const protocol = forwarded === "https" || forwarded === "http" ? forwarded : new URL(req.url).protocol.replace(":", "");
   return {

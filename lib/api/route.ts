@@ -10,7 +10,7 @@ import { AppError, DATABASE_RETRY_AFTER_SECONDS, isDatabaseUnavailable } from "@
 
 export { MAX_JSON_BYTES, readJson } from "@/lib/api/body";
 
-export function zodFields(error: z.ZodError): Record<string, string[]> {
+function zodFields(error: z.ZodError): Record<string, string[]> {
   const fields: Record<string, string[]> = {};
   for (const issue of error.issues) {
     const key = issue.path.length ? issue.path.join(".") : "_";
@@ -105,7 +105,7 @@ export function publicRoute<S extends z.ZodType | undefined = undefined>(
 // better-auth reads its own bodies (sign-in, sign-out, password change); they are small. The body is read
 // here first under the same streaming limit and text rules, then handed on. better-auth checks Origin itself
 // against its trusted origins.
-export const AUTH_MAX_BYTES = 64 * 1024;
+const AUTH_MAX_BYTES = 64 * 1024;
 
 export function authRoute(handler: (req: Request) => Promise<Response>) {
   return async (req: Request): Promise<Response> => {

@@ -92,7 +92,7 @@ function createAuth(secureCookies: boolean) {
   });
 }
 
-export type Auth = ReturnType<typeof createAuth>;
+type Auth = ReturnType<typeof createAuth>;
 
 const globalForAuth = globalThis as unknown as { gussetAuth?: { secure?: Auth; plain?: Auth } };
 

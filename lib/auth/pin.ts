@@ -1,7 +1,6 @@
 // Signing PINs: 4–8 digits, stored only as a salted scrypt hash.
 import { randomBytes, scrypt as scryptCb, timingSafeEqual } from "node:crypto";
 import { promisify } from "node:util";
-export { pinSchema } from "./pin-schema";
 
 const scrypt = promisify(scryptCb) as (password: string, salt: Buffer, keylen: number) => Promise<Buffer>;
 

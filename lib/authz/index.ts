@@ -55,10 +55,6 @@ export function rolesAllowed(action: Action): readonly Role[] {
   return PERMISSIONS[action] ?? [];
 }
 
-export function isRole(value: string): value is Role {
-  return (ROLES as readonly string[]).includes(value);
-}
-
 export type Principal = { userId: string; shopId: string; roles: readonly string[]; active: boolean };
 
 // The one check every handler and action runs before touching data.

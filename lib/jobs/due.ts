@@ -2,7 +2,7 @@
 // they compare as strings. Released and void jobs are never late.
 import type { JobStateName } from "./labels";
 
-export type DueCue = "overdue" | "today" | null;
+type DueCue = "overdue" | "today" | null;
 
 export function dueCue(dueDate: string | null, today: string, status: JobStateName): DueCue {
   if (dueDate === null || status === "released" || status === "void") return null;

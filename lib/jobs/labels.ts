@@ -4,6 +4,8 @@
 export const JOB_STATE_VALUES = ["planned", "in_progress", "on_hold", "ready_for_release", "released", "void"] as const;
 export type JobStateName = (typeof JOB_STATE_VALUES)[number];
 
+export type JointState = "welding" | "awaiting_inspection" | "repair" | "accepted";
+
 export type Tone = "pass" | "fail" | "warn" | "info" | "idle";
 
 export const JOB_STATE_LABELS: Record<JobStateName, { label: string; tone: Tone }> = {

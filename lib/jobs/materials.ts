@@ -1,6 +1,6 @@
 // The materials a job's record stands on: the latest entry of each correction chain, leaving out those
 // withdrawn. Used by the release sign-off (app and seed) so both seal the same list.
-export type MaterialRow = { id: string; kind: string; description: string; specification: string; heatNumber: string; certificate: string; correctsId: string | null; withdrawn: boolean };
+type MaterialRow = { id: string; kind: string; description: string; specification: string; heatNumber: string; certificate: string; correctsId: string | null; withdrawn: boolean };
 
 export function materialsInUse(rows: readonly MaterialRow[]) {
   const replaced = new Set(rows.map((r) => r.correctsId).filter(Boolean));

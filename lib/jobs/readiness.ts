@@ -5,9 +5,8 @@ import { checkDewPoint, evaluateDftArea, SPOTS_PER_AREA, MIN_READINGS_PER_SPOT, 
 import type { Step } from "@/lib/procedures/schema";
 import { canonicalJson } from "@/lib/seal/canonical-json";
 import { requiredCaptures } from "./captures";
-import { DISPOSITION_LABELS, type DispositionName } from "./labels";
+import { DISPOSITION_LABELS, type DispositionName, type JointState } from "./labels";
 import { measureVerdict, torqueVerdict, type Verdict } from "./tolerance";
-import type { JointView } from "./record";
 import type { CautionValue, CheckValue, CoatingValue, GeometryValue, MeasureValue, TorqueValue } from "./values";
 
 export type StepNc = { number: number; disposition: DispositionName | null; observed: unknown };
@@ -19,7 +18,15 @@ export type StepFacts = {
   passes: { preheatC: number }[];
   ncs: StepNc[];
   /** weld steps: the joint's state and its out-of-range passes still to be covered */
-  joint?: Pick<JointView, "state" | "round" | "uncovered"> | undefined;
+  joint?: JointFacts | undefined;
+};
+
+/** What readiness needs of a weld joint (the record's JointView carries these and more). */
+export type JointFacts = {
+  state: JointState;
+  round: number;
+  /** out-of-range passes of the current round with neither an override nor a dispositioned NC */
+  uncovered: { passNumber: number; messages: string[] }[];
 };
 
 export type Readiness = {

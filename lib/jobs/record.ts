@@ -2,8 +2,8 @@
 // Dates are ISO strings so the same type serves the server, the JSON and the browser.
 import type { Step, StepKind } from "@/lib/procedures/schema";
 import type { VisualCriteria, VisualItemResult, VisualObservations, WpsFinding, WpsRanges } from "@/lib/welding";
-import type { DispositionName, JobStateName } from "./labels";
-import type { Readiness } from "./readiness";
+import type { DispositionName, JobStateName, JointState } from "./labels";
+import type { JointFacts, Readiness } from "./readiness";
 
 export type PersonRef = { id: string; name: string };
 
@@ -106,7 +106,7 @@ export type RepairView = {
   recordedAt: string;
 };
 
-export type JointState = "welding" | "awaiting_inspection" | "repair" | "accepted";
+export type { JointState };
 
 export type JointRound = {
   round: number;
@@ -124,8 +124,7 @@ export type JointView = {
   rounds: JointRound[];
   /** everyone who recorded a pass of this joint, in any round, struck out or not */
   welderIds: string[];
-  /** out-of-range passes of the current round with neither an override nor a dispositioned NC */
-  uncovered: { passNumber: number; messages: string[] }[];
+  uncovered: JointFacts["uncovered"];
 };
 
 export type MaterialView = {

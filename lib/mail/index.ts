@@ -5,8 +5,8 @@ import { mailOutbox } from "@/db/schema";
 import { db } from "@/lib/db";
 import { env } from "@/lib/env";
 
-export type MailAttachment = { filename: string; contentType: string; content: Buffer };
-export type Mail = { to: string; subject: string; text: string; html: string; shopId?: string | null; attachments?: MailAttachment[] };
+type MailAttachment = { filename: string; contentType: string; content: Buffer };
+type Mail = { to: string; subject: string; text: string; html: string; shopId?: string | null; attachments?: MailAttachment[] };
 
 const MAX_ATTEMPTS = 8;
 
@@ -80,7 +80,7 @@ export async function flushOutbox(limit = 50): Promise<{ tried: number; sent: nu
   return { tried: pending.length, sent };
 }
 
-export function escapeHtml(s: string) {
+function escapeHtml(s: string) {
   return s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
 }
 

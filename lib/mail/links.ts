@@ -1,6 +1,6 @@
 // Splits a plain-text mail into text and web addresses, so the local mailbox can show links people can tap
 // (an invitation, a job) instead of text to copy. Only http(s) addresses become links.
-export type MailPart = { text: string; href?: string };
+type MailPart = { text: string; href?: string };
 
 const URL_RE = /https?:\/\/[^\s<>"']+/g;
 // Sentence punctuation right after an address belongs to the sentence, not the address.

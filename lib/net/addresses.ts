@@ -6,7 +6,7 @@ import { isIP } from "node:net";
 export const CLIENT_ADDRESS_HEADER = "x-gusset-client-address";
 
 // `::ffff:10.0.0.5` is the IPv4 address 10.0.0.5 seen through an IPv6 socket.
-export function normaliseAddress(address: string): string {
+function normaliseAddress(address: string): string {
   const a = address.trim().toLowerCase();
   const mapped = /^::ffff:(\d+\.\d+\.\d+\.\d+)$/.exec(a);
   return mapped ? mapped[1]! : a;

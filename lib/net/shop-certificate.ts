@@ -3,7 +3,7 @@ import { X509Certificate } from "node:crypto";
 import fs from "node:fs";
 import { env } from "@/lib/env";
 
-export type ShopAuthority = { pem: string; der: Buffer; fingerprint: string; subject: string; validTo: string };
+type ShopAuthority = { pem: string; der: Buffer; fingerprint: string; subject: string; validTo: string };
 
 // The shop's certificate authority that `npm start` made (public: devices install it to trust the shop's
 // HTTPS). Null when Gusset sits behind a proxy with a certificate of its own.

@@ -3,7 +3,7 @@
 // react-pdf's Image has no alt text (the PDF is not tagged); the name keeps the HTML img lint rule off it.
 import { Document, Image as PdfImage, Page, Path, Svg, Rect, Text, View, renderToBuffer, type PageProps, type TextProps } from "@react-pdf/renderer";
 import type { ReactNode } from "react";
-import { SAFETY_NOTE } from "@/components/safety-note";
+import { SAFETY_NOTE } from "@/lib/safety";
 import { registerTravellerFonts } from "./fonts";
 import { formatInstant, formatNumber, printableLines, formatSigned, groupHex, printable, sealShort, wrapUrl } from "./format";
 import { GeometryDiagrams, SteeringWheelChart } from "./geometry-diagram";

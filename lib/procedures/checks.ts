@@ -2,8 +2,8 @@
 import type { VersionBody } from "./hash";
 import { KIND_LABELS } from "./labels";
 
-export type ReadinessIssue = { stepKey?: string; sectionKey?: string; message: string };
-export type Readiness = { blockers: ReadinessIssue[]; warnings: ReadinessIssue[] };
+type ReadinessIssue = { stepKey?: string; sectionKey?: string; message: string };
+type Readiness = { blockers: ReadinessIssue[]; warnings: ReadinessIssue[] };
 
 export function publishReadiness(v: VersionBody): Readiness {
   const blockers: ReadinessIssue[] = [];

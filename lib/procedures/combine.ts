@@ -3,7 +3,7 @@
 import type { ProcedureFile } from "./file";
 import type { VersionContent } from "./schema";
 
-export const COMBINED_SAFETY_NOTE =
+const COMBINED_SAFETY_NOTE =
   "This procedure supports, and never replaces, the vehicle maker's specifications, local codes and qualified or licensed practice.";
 
 export function combineProcedures(

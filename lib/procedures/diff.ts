@@ -12,7 +12,7 @@ export type StepRow =
   | { type: "changed"; key: string; before: Step; after: Step; changes: FieldChange[]; moved: Move | null }
   | { type: "same"; key: string; before: Step; after: Step; moved: Move | null };
 
-export type SectionBlock = {
+type SectionBlock = {
   key: string;
   status: "added" | "removed" | "renamed" | "same";
   beforeTitle: string | null;
@@ -39,7 +39,7 @@ function flatten(value: unknown, prefix = "", out: Record<string, unknown> = {})
   return out;
 }
 
-export function displayValue(field: string, value: unknown): string {
+function displayValue(field: string, value: unknown): string {
   if (value === undefined || value === null || value === "") return "—";
   if (typeof value === "boolean") return value ? "Yes" : "No";
   if (field === "kind" && typeof value === "string") return KIND_LABELS[value as keyof typeof KIND_LABELS] ?? value;
@@ -63,7 +63,7 @@ function withUnit(step: Step, field: string, text: string): string {
   return unit === "°" ? `${text}°` : `${text} ${unit}`;
 }
 
-export function stepChanges(before: Step, after: Step): FieldChange[] {
+function stepChanges(before: Step, after: Step): FieldChange[] {
   const a = flatten(before);
   const b = flatten(after);
   const fields = [...new Set([...Object.keys(a), ...Object.keys(b)])].sort((x, y) => rank(x) - rank(y) || x.localeCompare(y));

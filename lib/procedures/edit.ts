@@ -29,7 +29,7 @@ function sectionIndex(content: VersionContent, key: string) {
   return i;
 }
 
-export function allKeys(content: VersionContent): Set<string> {
+function allKeys(content: VersionContent): Set<string> {
   const keys = new Set<string>();
   for (const s of content.sections) {
     keys.add(s.key);
@@ -148,7 +148,7 @@ export function deleteSection(content: VersionContent, key: string): VersionCont
 }
 
 // What the new-step form starts from: choices preset to what a lead most often writes, figures left empty.
-export type StepDraft = { kind: StepKind; key: string } & Record<string, unknown>;
+type StepDraft = { kind: StepKind; key: string } & Record<string, unknown>;
 
 export function blankStep(kind: StepKind, content: VersionContent): StepDraft {
   const base = { key: uniqueKey(content, `new-${kind}`), title: "", instructions: "", signedBy: "welder" as const, photos: { required: false, min: 0 } };

@@ -17,7 +17,7 @@ export const PROCEDURE_FILE_V1_SCHEMA_PATH = "/schemas/gusset-procedure-1.schema
 export const PROCEDURE_FILE_EXTENSION = ".gusset-procedure.json";
 
 // Where an exported file came from. Informational: an import never trusts it, it only compares the hash.
-export const procedureFileSourceSchema = z
+const procedureFileSourceSchema = z
   .object({
     shop: z.string().max(200).optional(),
     procedureId: z.string().max(100).optional(),
@@ -81,8 +81,8 @@ export const procedureFileSchema = z.union([procedureFileV1Schema, procedureFile
 
 export type ProcedureFile = z.output<typeof procedureFileV1Schema> | z.output<typeof procedureFileV2Schema>;
 
-export type FileProblem = { path: string; where: string; message: string };
-export type FileParse =
+type FileProblem = { path: string; where: string; message: string };
+type FileParse =
   | { ok: true; file: ProcedureFile }
   | { ok: false; status: 400 | 413 | 422; message: string; problems: FileProblem[] };
 

@@ -67,7 +67,7 @@ export const sectionFormSchema = z.object({
 
 export const sectionOpSchema = z.object({ procedureId, number: versionNumber, sectionKey: key, op: z.enum(["up", "down", "delete"]) });
 
-export const changeNote = z
+const changeNote = z
   .string({ message: "Write a change note: what changed and why." })
   .trim()
   .min(5, "Write a change note of at least 5 characters: what changed and why.")
@@ -98,8 +98,8 @@ export const patchVersionBody = z
 
 export const publishBody = z.object({ changeNote, retirePrevious: z.boolean().default(true) }).strict();
 
-export const LIST_STATES = ["all", "published", "draft", "retired"] as const;
-export const LIST_SORTS = ["title", "updated"] as const;
+const LIST_STATES = ["all", "published", "draft", "retired"] as const;
+const LIST_SORTS = ["title", "updated"] as const;
 
 export const listQuerySchema = z.object({
   q: z.string().trim().max(100).optional(),

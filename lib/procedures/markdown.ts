@@ -9,7 +9,7 @@ export type Inline =
   | { type: "link"; href: string; children: Inline[] }
   | { type: "break" };
 
-export type Block =
+type Block =
   | { type: "heading"; level: 1 | 2 | 3; children: Inline[] }
   | { type: "paragraph"; children: Inline[] }
   | { type: "list"; ordered: boolean; items: Inline[][] }

@@ -144,9 +144,7 @@ export const stepSchema = z.discriminatedUnion(
   { message: `Unknown step kind; use one of ${STEP_KINDS.join(", ")}.` },
 );
 export type Step = z.output<typeof stepSchema>;
-export type StepInput = z.input<typeof stepSchema>;
-
-export const sectionSchema = z
+const sectionSchema = z
   .object({
     key,
     title: z.string({ message: "A section title is required." }).trim().min(1, "A section title is required.").max(200, "Titles are at most 200 characters."),

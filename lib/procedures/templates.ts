@@ -21,7 +21,7 @@ export const TEMPLATE_FILES = {
   "lateral-link-bracket-start-to-finish": startToFinish,
 } as const;
 
-export type TemplateSlug = keyof typeof TEMPLATE_FILES;
+type TemplateSlug = keyof typeof TEMPLATE_FILES;
 
 export const TEMPLATE_FILE_NAMES: Record<TemplateSlug, string> = {
   "remove-lateral-link-bracket": "01-remove-lateral-link-bracket.gusset-procedure.json",

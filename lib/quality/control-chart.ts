@@ -11,7 +11,7 @@ export const IMR_METHOD = "Individuals chart (I-MR): centre line = mean; control
 // Shown on screen: no clause number, since it is from memory.
 export const IMR_SOURCE = "NIST/SEMATECH e-Handbook of Statistical Methods, individuals control charts";
 
-export type IndividualsChart = {
+type IndividualsChart = {
   n: number;
   mean: number;
   /** average moving range of consecutive values; null with fewer than two values */

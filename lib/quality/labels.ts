@@ -2,7 +2,7 @@
 import { DISPOSITION_LABELS, JOB_STATE_LABELS, type DispositionName, type JobStateName } from "@/lib/jobs/labels";
 
 /** Visual inspection items (lib/welding VisualItem) as an inspector names them. */
-export const DEFECT_LABELS: Record<string, string> = {
+const DEFECT_LABELS: Record<string, string> = {
   cracks: "Cracks",
   fusion: "Incomplete fusion",
   craters: "Unfilled craters",

@@ -30,14 +30,12 @@ export const qualityQuerySchema = z
   .refine((v) => !v.from || !v.to || v.from <= v.to, { path: ["to"], message: "The end date is before the start date." })
   .refine((v) => !v.from || !v.to || daysBetween(v.from, v.to) <= 3660, { path: ["from"], message: "At most ten years at a time." });
 
-export type QualityQuery = z.output<typeof qualityQuerySchema>;
-
-export function daysBetween(from: string, to: string): number {
+function daysBetween(from: string, to: string): number {
   return Math.round((Date.parse(`${to}T00:00:00Z`) - Date.parse(`${from}T00:00:00Z`)) / 86_400_000);
 }
 
 /** The screen opens on the last 90 days; an explicit range replaces it. */
-export const DEFAULT_WINDOW_DAYS = 90;
+const DEFAULT_WINDOW_DAYS = 90;
 
 export function defaultRange(today: string, days = DEFAULT_WINDOW_DAYS): { from: string; to: string } {
   const t = Date.parse(`${today}T00:00:00Z`);
@@ -47,7 +45,7 @@ export function defaultRange(today: string, days = DEFAULT_WINDOW_DAYS): { from:
 /** At most this many heat-input points per WPS (the latest): enough for an individuals chart, small on the wire. */
 export const MAX_HEAT_POINTS = 500;
 
-export type Yield = { inspected: number; acceptedFirst: number; ratio: number | null };
+type Yield = { inspected: number; acceptedFirst: number; ratio: number | null };
 
 export type HeatPoint = {
   at: string;

@@ -1,6 +1,6 @@
 // The record-chain entry of one sign-off: who signed what, when, meaning what, over which content hash.
 // Rebuilt from the sign-off row at every verification, so a changed row no longer matches its hash.
-export const RECORD_ENTRY_SCHEMA = "gusset.record-entry/1";
+const RECORD_ENTRY_SCHEMA = "gusset.record-entry/1";
 
 export type SignOffForChain = {
   id: string;

@@ -18,7 +18,7 @@ export function verifyUrlWithSeal(verifyUrl: string, seal: string): string {
   return url.toString();
 }
 
-export type PaperVerdict = "agrees" | "earlier" | "disagrees";
+type PaperVerdict = "agrees" | "earlier" | "disagrees";
 
 export type PaperCheck = {
   /** the digits given, as compared */

@@ -5,7 +5,7 @@ import { canonicalJson } from "@/lib/seal/canonical-json";
 import { recordContent, STEP_CONTENT_SCHEMA } from "@/lib/jobs/content";
 import { sealedWeldMap, type JobWeldMap } from "@/lib/weld-map";
 
-export type SealedSignOff = { id: string; stepId: string | null; content: Record<string, unknown> };
+type SealedSignOff = { id: string; stepId: string | null; content: Record<string, unknown> };
 
 export type LiveRows = {
   steps: { id: string; title: string; value: Record<string, unknown> | null }[];

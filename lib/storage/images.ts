@@ -10,7 +10,7 @@ import { fileTypeFromBuffer } from "file-type";
 import sharp, { type OutputInfo } from "sharp";
 import { AppError } from "@/lib/errors";
 
-export const ACCEPTED_TYPES = ["image/jpeg", "image/png", "image/webp", "image/avif"] as const;
+const ACCEPTED_TYPES = ["image/jpeg", "image/png", "image/webp", "image/avif"] as const;
 const HEIC_TYPES = new Set(["image/heic", "image/heif", "image/heic-sequence", "image/heif-sequence"]);
 const MAX_SIDE = 2560;
 const THUMB_SIDE = 360;
@@ -27,7 +27,7 @@ export type ProcessedPhoto = {
   contentType: "image/jpeg";
 };
 
-export async function sniffImageType(bytes: Buffer): Promise<string | null> {
+async function sniffImageType(bytes: Buffer): Promise<string | null> {
   const found = await fileTypeFromBuffer(bytes);
   return found?.mime ?? null;
 }

@@ -2,7 +2,7 @@
 // Pure (no server imports) so browser components can use them too.
 import type { VisualItem } from "@/lib/welding";
 
-export const ITEM_LABELS: Record<VisualItem, string> = {
+const ITEM_LABELS: Record<VisualItem, string> = {
   cracks: "cracks",
   fusion: "fusion",
   craters: "craters",

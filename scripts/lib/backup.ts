@@ -12,11 +12,11 @@ import { log } from "./log";
 import { ensurePostgresInstalled } from "./postgres";
 import { ensureBucket } from "./services";
 
-export const BACKUP_FORMAT = "gusset-backup/1";
+const BACKUP_FORMAT = "gusset-backup/1";
 
 export type StoreSettings = { endpoint: string; region: string; bucket: string; accessKeyId: string; secretAccessKey: string; forcePathStyle: boolean };
 
-export type Manifest = {
+type Manifest = {
   format: typeof BACKUP_FORMAT;
   createdAt: string;
   database: { file: string; sha256: string; size: number };
@@ -107,7 +107,7 @@ export async function backup(opts: { databaseUrl: string; store: StoreSettings; 
 }
 
 /** Tables in the public schema: a database with any is not overwritten without --force. */
-export async function tableCount(databaseUrl: string): Promise<number> {
+async function tableCount(databaseUrl: string): Promise<number> {
   const c = new pg.Client({ connectionString: databaseUrl });
   await c.connect();
   try {

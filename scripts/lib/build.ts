@@ -17,7 +17,7 @@ function walk(dir: string, out: string[]) {
   }
 }
 
-export function sourceHash(root: string): string {
+function sourceHash(root: string): string {
   const files: string[] = [];
   for (const d of SOURCES) walk(path.join(root, d), files);
   for (const f of FILES) if (fs.existsSync(path.join(root, f))) files.push(path.join(root, f));

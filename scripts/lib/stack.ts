@@ -17,7 +17,7 @@ import { startMailCatcher, startObjectStore } from "./services";
 // The S3 SDK is pinned to a release that supports Node 20 (see STACK.md); its notice about later releases is noise here.
 process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ??= "true";
 
-export type StackOptions = {
+type StackOptions = {
   root: string;
   dataDir: string;
   pgPort: number;
@@ -29,7 +29,7 @@ export type StackOptions = {
   https: { port: number; extraNames?: string[] } | null;
 };
 
-export type Stack = {
+type Stack = {
   env: NodeJS.ProcessEnv;
   adminDatabaseUrl: string | null;
   certificate: ShopCertificate | null;

@@ -3,7 +3,7 @@ import { randomBytes } from "node:crypto";
 import path from "node:path";
 import { simpleParser } from "mailparser";
 import { describe, expect, it } from "vitest";
-import { noticeStage } from "@/app/api/qualifications/schema";
+import { noticeStage } from "@/lib/welding/qualification-schema";
 import { addDays, addMonthsClamped, continuity } from "@/lib/welding";
 import { api, BASE_URL, session, waitFor, withDb } from "./support";
 

@@ -9,7 +9,7 @@ import jsQR from "jsqr";
 import { PNG } from "pngjs";
 import { extractText, getDocumentProxy } from "unpdf";
 import { beforeAll, describe, expect, it } from "vitest";
-import { SAFETY_NOTE } from "@/components/safety-note";
+import { SAFETY_NOTE } from "@/lib/safety";
 import { makeQr } from "@/lib/pdf/qr";
 import { HAZARD_LINE, PAGE_SIZE_PT, VOID_TITLE, WIP_TITLE, renderTraveller } from "@/lib/pdf/traveller";
 import type { TravellerData } from "@/lib/pdf/traveller-data";

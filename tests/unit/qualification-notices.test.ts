@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { NOTICE_STAGES, noticeStage } from "@/app/api/qualifications/schema";
+import { NOTICE_STAGES, noticeStage } from "@/lib/welding/qualification-schema";
 import { noticeMail } from "@/app/api/internal/qualification-notices/run";
 import { continuity } from "@/lib/welding";
 

@@ -1,6 +1,6 @@
-// The rules the qualification and WPS forms and API share (app/api/qualifications/schema.ts, app/api/wps/schema.ts).
+// The rules the qualification and WPS forms and API share (lib/welding/qualification-schema.ts, lib/welding/wps-schema.ts).
 import { describe, expect, it } from "vitest";
-import { qualificationCreateSchema, qualificationPatchSchema, todayIso } from "@/app/api/qualifications/schema";
+import { qualificationCreateSchema, qualificationPatchSchema, todayIso } from "@/lib/welding/qualification-schema";
 import {
   applyPatch,
   contentIssues,
@@ -10,7 +10,7 @@ import {
   toWpsRanges,
   wpsPatchSchema,
   type WpsContent,
-} from "@/app/api/wps/schema";
+} from "@/lib/welding/wps-schema";
 import { checkPassAgainstWps } from "@/lib/welding";
 
 const good = {

@@ -3,7 +3,7 @@ import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 import { createQualification, setContinuityCode, updateQualification } from "@/db/queries/qualifications";
 import { runFormAction, type FormState } from "@/lib/api/action";
-import { continuityCodeSchema, qualificationFormSchema } from "@/app/api/qualifications/schema";
+import { continuityCodeSchema, qualificationFormSchema } from "@/lib/welding/qualification-schema";
 
 export async function saveQualificationAction(_: FormState | undefined, formData: FormData): Promise<FormState> {
   let created: string | undefined;

@@ -4,7 +4,7 @@ import { redirect } from "next/navigation";
 import { z } from "zod";
 import { createWps, publishRevision, retireRevision, saveDraft, startRevision } from "@/db/queries/wps";
 import { runFormAction, type FormState } from "@/lib/api/action";
-import { changeNoteSchema, formToContent, retireSchema, wpsCreateSchema, wpsDraftFormSchema } from "@/app/api/wps/schema";
+import { changeNoteSchema, formToContent, retireSchema, wpsCreateSchema, wpsDraftFormSchema } from "@/lib/welding/wps-schema";
 
 // redirect() throws on purpose, so it is called after runFormAction has returned, never inside it.
 

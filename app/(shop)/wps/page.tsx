@@ -3,7 +3,7 @@ import { PageHeader } from "@/components/page-header";
 import { can } from "@/lib/authz";
 import { requireShop } from "@/lib/auth/context";
 import { listWps } from "@/db/queries/wps";
-import { WPS_PROCESSES, WPS_STATES, STATUS_LABELS, wpsListQuerySchema } from "@/app/api/wps/schema";
+import { WPS_PROCESSES, WPS_STATES, STATUS_LABELS, wpsListQuerySchema } from "@/lib/welding/wps-schema";
 import { StartWpsForm } from "./_components/start-wps-form";
 import { WpsTable } from "./_components/wps-table";
 import { day } from "./_components/format";

@@ -1,7 +1,7 @@
 import { NextResponse } from "next/server";
 import { createQualification, getQualification, listQualifications } from "@/db/queries/qualifications";
 import { shopRoute } from "@/lib/api/route";
-import { qualificationCreateSchema, qualificationListQuerySchema } from "./schema";
+import { qualificationCreateSchema, qualificationListQuerySchema } from "@/lib/welding/qualification-schema";
 
 export const dynamic = "force-dynamic";
 

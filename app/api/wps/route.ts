@@ -1,7 +1,7 @@
 import { NextResponse } from "next/server";
 import { createWps, getRevision, listWps } from "@/db/queries/wps";
 import { shopRoute } from "@/lib/api/route";
-import { wpsCreateSchema, wpsListQuerySchema } from "./schema";
+import { wpsCreateSchema, wpsListQuerySchema } from "@/lib/welding/wps-schema";
 
 export const dynamic = "force-dynamic";
 

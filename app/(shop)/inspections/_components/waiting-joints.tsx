@@ -6,7 +6,7 @@ import type { WaitingJoint } from "@/db/queries/jobs-welds";
 
 const utc = (iso: string) => `${iso.slice(0, 16).replace("T", " ")} UTC`;
 
-export function runHref(j: Pick<WaitingJoint, "jobId" | "stepKey">) {
+function runHref(j: Pick<WaitingJoint, "jobId" | "stepKey">) {
   return `/run/${j.jobId}?step=${encodeURIComponent(j.stepKey)}`;
 }
 

@@ -5,7 +5,7 @@ import { StatusBadge } from "@/components/status-badge";
 import { ROLE_LABELS, type Role } from "@/lib/authz";
 import { ActiveForm, LegalNameForm, PinResetForm, RoleChecks, RolesSaveBar } from "./member-actions";
 
-export type MemberView = {
+type MemberView = {
   membershipId: string;
   name: string;
   legalName: string;

@@ -5,7 +5,7 @@ import { DataTable } from "@/components/data-table";
 import type { VersionStatus } from "@/lib/procedures/labels";
 import { VersionStatusBadge } from "./status";
 
-export type HistoryRow = {
+type HistoryRow = {
   number: number;
   status: VersionStatus;
   changeNote: string | null;

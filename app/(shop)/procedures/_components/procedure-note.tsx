@@ -1,4 +1,4 @@
-export const PROCEDURE_NOTE =
+const PROCEDURE_NOTE =
   "Procedures support, and never replace, the vehicle maker's specifications, local codes and qualified or licensed practice.";
 
 export function ProcedureNote({ className = "" }: { className?: string }) {

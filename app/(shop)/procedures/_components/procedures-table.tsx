@@ -6,7 +6,7 @@ import { DataTable } from "@/components/data-table";
 import type { VersionStatus } from "@/lib/procedures/labels";
 import { VersionStatusBadge } from "./status";
 
-export type ProcedureRowView = {
+type ProcedureRowView = {
   id: string;
   title: string;
   code: string;

@@ -9,7 +9,7 @@ import { requireShop } from "@/lib/auth/context";
 import { AppError } from "@/lib/errors";
 import { getQualification } from "@/db/queries/qualifications";
 import { listPublishedWps } from "@/db/queries/wps";
-import { CODE_LABELS } from "@/app/api/qualifications/schema";
+import { CODE_LABELS } from "@/lib/welding/qualification-schema";
 import { ContinuityBadge } from "../../wps/_components/badges";
 import { day } from "../../wps/_components/format";
 import { CertificateUpload } from "../_components/certificate-upload";

@@ -1,7 +1,7 @@
 "use client";
 import { useActionState } from "react";
 import { FormMessage } from "@/components/form-message";
-import { CODE_LABELS, CODE_RULES } from "@/app/api/qualifications/schema";
+import { CODE_LABELS, CODE_RULES } from "@/lib/welding/qualification-schema";
 import { CONTINUITY_CODES, type ContinuityCode } from "@/lib/welding/continuity";
 import { setCodeAction } from "../actions";
 

@@ -4,14 +4,14 @@ import { parseWithZod } from "@conform-to/zod/v4";
 import { startTransition, useActionState } from "react";
 import type { z } from "zod";
 import { FormMessage } from "@/components/form-message";
-import { qualificationFormSchema } from "@/app/api/qualifications/schema";
-import { WPS_POSITIONS, WPS_PROCESSES } from "@/app/api/wps/schema";
+import { qualificationFormSchema } from "@/lib/welding/qualification-schema";
+import { WPS_POSITIONS, WPS_PROCESSES } from "@/lib/welding/wps-schema";
 import { saveQualificationAction } from "../actions";
 
 type Input = z.input<typeof qualificationFormSchema>;
 type AnyField = FieldMetadata<string | number | undefined>;
 
-export type QualificationDefaults = {
+type QualificationDefaults = {
   id?: string;
   welderUserId?: string;
   process?: string;

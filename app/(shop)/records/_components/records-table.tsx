@@ -3,7 +3,7 @@ import type { ColumnDef } from "@tanstack/react-table";
 import Link from "next/link";
 import { DataTable } from "@/components/data-table";
 
-export type RecordRow = { id: string; number: string; customerName: string; vin: string; axleTag: string; vehicle: string; procedure: string; releasedAt: string | null };
+type RecordRow = { id: string; number: string; customerName: string; vin: string; axleTag: string; vehicle: string; procedure: string; releasedAt: string | null };
 
 const columns: ColumnDef<RecordRow, unknown>[] = [
   { header: "Job", cell: ({ row }) => <Link className="figures font-semibold underline" href={`/jobs/${row.original.id}`}>{row.original.number}</Link> },

@@ -1,6 +1,6 @@
 import { StatusBadge } from "@/components/status-badge";
-import { STATUS_LABELS, type WpsStatus } from "@/app/api/wps/schema";
-import { CONTINUITY_STATUS_LABELS } from "@/app/api/qualifications/schema";
+import { STATUS_LABELS, type WpsStatus } from "@/lib/welding/wps-schema";
+import { CONTINUITY_STATUS_LABELS } from "@/lib/welding/qualification-schema";
 import type { ContinuityStatus } from "@/lib/welding";
 
 // Word and shape per state: published ● (in use), draft ◆ (being written), retired ○ (out of use).

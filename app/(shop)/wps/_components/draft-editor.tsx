@@ -17,7 +17,7 @@ import {
   WPS_PROCESSES,
   wpsDraftFormSchema,
   type WpsContent,
-} from "@/app/api/wps/schema";
+} from "@/lib/welding/wps-schema";
 import { saveDraftAction } from "../actions";
 
 type Input = z.input<typeof wpsDraftFormSchema>;

@@ -4,7 +4,7 @@ import { parseWithZod } from "@conform-to/zod/v4";
 import { startTransition, useActionState } from "react";
 import { z } from "zod";
 import { FormMessage } from "@/components/form-message";
-import { changeNoteSchema, retireSchema } from "@/app/api/wps/schema";
+import { changeNoteSchema, retireSchema } from "@/lib/welding/wps-schema";
 import { newRevisionAction, publishAction, retireAction } from "../actions";
 
 const publishForm = z.object({ changeNote: changeNoteSchema });

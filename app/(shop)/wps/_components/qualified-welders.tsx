@@ -1,8 +1,8 @@
 import Link from "next/link";
 import { StatusBadge } from "@/components/status-badge";
 import type { QualificationRow } from "@/db/queries/qualifications";
-import type { WpsProcess } from "@/app/api/wps/schema";
-import { CODE_LABELS } from "@/app/api/qualifications/schema";
+import type { WpsProcess } from "@/lib/welding/wps-schema";
+import { CODE_LABELS } from "@/lib/welding/qualification-schema";
 import type { ContinuityCode } from "@/lib/welding";
 import { ContinuityBadge } from "./badges";
 

@@ -1,6 +1,6 @@
 import { PROCESS_INFO } from "@/lib/welding/processes";
 import type { UnitSystem } from "@/lib/units";
-import { BASIS_LABELS, CURRENT_LABELS, POLARITY_LABELS, type WpsContent } from "@/app/api/wps/schema";
+import { BASIS_LABELS, CURRENT_LABELS, POLARITY_LABELS, type WpsContent } from "@/lib/welding/wps-schema";
 import { measure, measureSpan, span } from "./format";
 
 function Row({ label, children, testId }: { label: string; children: React.ReactNode; testId?: string }) {

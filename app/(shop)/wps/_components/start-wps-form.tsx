@@ -5,7 +5,7 @@ import { startTransition, useActionState } from "react";
 import type { z } from "zod";
 import { FormMessage } from "@/components/form-message";
 import { PROCESS_INFO } from "@/lib/welding/processes";
-import { WPS_PROCESSES, wpsCreateSchema } from "@/app/api/wps/schema";
+import { WPS_PROCESSES, wpsCreateSchema } from "@/lib/welding/wps-schema";
 import { startWpsAction } from "../actions";
 
 export function StartWpsForm() {

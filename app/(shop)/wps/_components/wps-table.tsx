@@ -2,10 +2,10 @@
 import type { ColumnDef } from "@tanstack/react-table";
 import Link from "next/link";
 import { DataTable } from "@/components/data-table";
-import type { WpsProcess, WpsState } from "@/app/api/wps/schema";
+import type { WpsProcess, WpsState } from "@/lib/welding/wps-schema";
 import { WpsStatusBadge } from "./badges";
 
-export type WpsListView = {
+type WpsListView = {
   id: string;
   reference: string;
   title: string;

@@ -1,7 +1,7 @@
 import { computeSteeringGeometry } from "@/lib/geometry";
 import { AppError } from "@/lib/errors";
 import { calcRoute } from "../_lib/calc-route";
-import { ANONYMOUS_WORK_BUDGET, steeringRequestSchema, steeringWork } from "./schema";
+import { ANONYMOUS_WORK_BUDGET, steeringRequestSchema, steeringWork } from "@/lib/calc/steering-request";
 
 export const dynamic = "force-dynamic";
 

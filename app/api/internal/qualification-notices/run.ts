@@ -2,12 +2,12 @@ import "server-only";
 // The daily lapsing-notice job: each lead of a shop hears about each qualification that lapses within 30
 // days, at the 30, 14, 7 and 1 day stages, never twice in a day (qualification_notice holds the claims).
 // Called by POST /api/internal/qualification-notices and by `npx tsx scripts/qualification-notices.ts`.
-import { CODE_LABELS, CODE_RULES, noticeStage, todayIso } from "@/app/api/qualifications/schema";
+import { CODE_LABELS, CODE_RULES, noticeStage, todayIso } from "@/lib/welding/qualification-schema";
 import { attachNoticeMail, claimNotice, lapsingForNotices, releaseNotice, shopLeads, type LapsingForNotice } from "@/db/queries/qualifications";
 import { env } from "@/lib/env";
 import { mailHtml, sendMail } from "@/lib/mail";
 
-export type NoticeRun = { today: string; lapsing: number; sent: number; queued: number; alreadyNoticed: number };
+type NoticeRun = { today: string; lapsing: number; sent: number; queued: number; alreadyNoticed: number };
 
 export function noticeMail(q: LapsingForNotice, lead: { name: string }, appUrl: string) {
   const days = `${q.daysLeft} day${q.daysLeft === 1 ? "" : "s"}`;

@@ -1,7 +1,7 @@
 import { getQualification, updateQualification } from "@/db/queries/qualifications";
 import { shopRoute } from "@/lib/api/route";
 import { qualificationIdParam } from "../params";
-import { qualificationPatchSchema } from "../schema";
+import { qualificationPatchSchema } from "@/lib/welding/qualification-schema";
 
 export const dynamic = "force-dynamic";
 

@@ -1,6 +1,6 @@
 import { setContinuityCode, shopContinuityCode } from "@/db/queries/qualifications";
 import { shopRoute } from "@/lib/api/route";
-import { CODE_LABELS, CODE_RULES, continuityCodeSchema } from "../schema";
+import { CODE_LABELS, CODE_RULES, continuityCodeSchema } from "@/lib/welding/qualification-schema";
 
 export const dynamic = "force-dynamic";
 

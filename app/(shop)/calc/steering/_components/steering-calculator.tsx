@@ -15,7 +15,7 @@ import {
   type SteeringFormState,
   withEntry,
 } from "@/components/calc/steering-request";
-import type { SteeringRequest } from "@/app/api/calc/steering/schema";
+import type { SteeringRequest } from "@/lib/calc/steering-request";
 import { figure, shown, symbolFor, type UnitSystem } from "@/components/calc/values";
 import { StatusBadge } from "@/components/status-badge";
 import { computeSteeringGeometry, isGeometryError, toeAtRim, type OptimumResult, type SteeringInput, type SteeringResult } from "@/lib/geometry";

@@ -5,13 +5,13 @@ import "server-only";
 import { createHash } from "node:crypto";
 import { fileTypeFromBuffer } from "file-type";
 import sharp from "sharp";
-import { CERTIFICATE_MAX_BYTES, CERTIFICATE_TYPES } from "@/app/api/qualifications/schema";
+import { CERTIFICATE_MAX_BYTES, CERTIFICATE_TYPES } from "@/lib/welding/qualification-schema";
 import { AppError } from "@/lib/errors";
 
 const EXTENSIONS: Record<(typeof CERTIFICATE_TYPES)[number], string> = { "application/pdf": "pdf", "image/jpeg": "jpg", "image/png": "png" };
 const MAX_PIXELS = 60_000_000;
 
-export type PreparedCertificate = { bytes: Buffer; contentType: (typeof CERTIFICATE_TYPES)[number]; extension: string; sha256: string };
+type PreparedCertificate = { bytes: Buffer; contentType: (typeof CERTIFICATE_TYPES)[number]; extension: string; sha256: string };
 
 export async function prepareCertificate(input: Buffer): Promise<PreparedCertificate> {
   if (input.length === 0) throw new AppError("bad_request", "The file is empty.", { file: ["Choose the certificate file."] });

@@ -4,7 +4,7 @@ import { shopRoute } from "@/lib/api/route";
 import { AppError } from "@/lib/errors";
 import { getObject, putObject } from "@/lib/storage";
 import { qualificationIdParam } from "../../params";
-import { CERTIFICATE_MAX_BYTES } from "../../schema";
+import { CERTIFICATE_MAX_BYTES } from "@/lib/welding/qualification-schema";
 import { certificateKey, cleanFileName, downloadName, prepareCertificate } from "./certificate";
 
 export const dynamic = "force-dynamic";

@@ -1,7 +1,7 @@
 import { getRevision, saveDraft } from "@/db/queries/wps";
 import { shopRoute } from "@/lib/api/route";
 import { revisionParam, wpsIdParam } from "../../../params";
-import { toWpsRanges, wpsPatchSchema } from "../../../schema";
+import { toWpsRanges, wpsPatchSchema } from "@/lib/welding/wps-schema";
 
 export const dynamic = "force-dynamic";
 

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { PageHeader } from "@/components/page-header";
 import { requireShop } from "@/lib/auth/context";
-import { FIELD_LABELS, publishIssues } from "@/app/api/wps/schema";
+import { FIELD_LABELS, publishIssues } from "@/lib/welding/wps-schema";
 import { WpsStatusBadge } from "../../../../_components/badges";
 import { DraftEditor } from "../../../../_components/draft-editor";
 import { loadRevision } from "../../../../_components/load";

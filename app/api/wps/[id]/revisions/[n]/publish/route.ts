@@ -1,7 +1,7 @@
 import { getRevision, publishRevision } from "@/db/queries/wps";
 import { shopRoute } from "@/lib/api/route";
 import { revisionParam, wpsIdParam } from "../../../../params";
-import { publishSchema } from "../../../../schema";
+import { publishSchema } from "@/lib/welding/wps-schema";
 
 export const dynamic = "force-dynamic";
 

@@ -1,7 +1,7 @@
 import { getRevision, retireRevision } from "@/db/queries/wps";
 import { shopRoute } from "@/lib/api/route";
 import { revisionParam, wpsIdParam } from "../../../../params";
-import { retireSchema } from "../../../../schema";
+import { retireSchema } from "@/lib/welding/wps-schema";
 
 export const dynamic = "force-dynamic";
 

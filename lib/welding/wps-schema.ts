@@ -14,8 +14,7 @@ export type WpsPosition = (typeof WPS_POSITIONS)[number];
 export const CURRENT_TYPES = ["DC", "AC"] as const;
 export const POLARITIES = ["EP", "EN"] as const;
 export const HEAT_INPUT_BASES = ["arc-energy", "iso-q"] as const;
-export const WPS_STATUSES = ["draft", "published", "retired"] as const;
-export type WpsStatus = (typeof WPS_STATUSES)[number];
+export type WpsStatus = "draft" | "published" | "retired";
 // The state of a WPS as a whole, for the library list: in use, never published yet, or out of use.
 export const WPS_STATES = ["published", "draft", "retired"] as const;
 export type WpsState = (typeof WPS_STATES)[number];
@@ -32,7 +31,7 @@ export const BASIS_LABELS: Record<(typeof HEAT_INPUT_BASES)[number], string> = {
 };
 
 // Which ISO 4063 numbers a process family takes; the first is offered by default.
-export function iso4063For(process: WpsProcess): readonly number[] {
+function iso4063For(process: WpsProcess): readonly number[] {
   return PROCESS_INFO[process].iso4063;
 }
 
@@ -63,7 +62,7 @@ export type WpsContent = {
   notes: string;
 };
 
-export type WpsField = keyof WpsContent;
+type WpsField = keyof WpsContent;
 
 export const FIELD_LABELS: Record<WpsField, string> = {
   title: "Title",
@@ -133,7 +132,7 @@ const numberIn = (label: string, unit: string, min: number, max: number, opts: {
 const positive = (label: string, unit: string, max: number) => numberIn(label, unit, 0, max, { exclusiveMin: true });
 const text = (label: string, max: number) => z.string({ error: `${label} must be text.` }).trim().max(max, { error: `At most ${max} characters.` });
 
-export const wpsFieldSchemas = {
+const wpsFieldSchemas = {
   title: text("Title", 120),
   process: z.enum(WPS_PROCESSES, { error: `Process is one of ${WPS_PROCESSES.join(", ")}.` }),
   iso4063: numberIn("the ISO 4063 number", "", 1, 999, { int: true }),

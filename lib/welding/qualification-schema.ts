@@ -1,7 +1,7 @@
 // Welder qualifications: the words, and the zod schemas the API and the lead's forms share. Pure.
 import { z } from "zod";
 import { CONTINUITY_CODES, parseIsoDate, type ContinuityCode, type ContinuityStatus } from "@/lib/welding";
-import { WPS_POSITIONS, WPS_PROCESSES } from "@/app/api/wps/schema";
+import { WPS_POSITIONS, WPS_PROCESSES } from "./wps-schema";
 
 export const CONTINUITY_STATUSES = ["current", "lapsing", "lapsed"] as const satisfies readonly ContinuityStatus[];
 
@@ -49,7 +49,7 @@ const mm = (label: string, max: number) =>
     .gt(0, { error: "Must be above 0 mm." })
     .max(max, { error: `Must be at most ${max} mm.` });
 
-export const qualificationFieldSchemas = {
+const qualificationFieldSchemas = {
   welderUserId: z.string({ error: "Choose the welder." }).trim().min(1, { error: "Choose the welder." }).max(64),
   process: z.enum(WPS_PROCESSES, { error: `Process is one of ${WPS_PROCESSES.join(", ")}.` }),
   positions: z

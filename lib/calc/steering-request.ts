@@ -7,7 +7,7 @@ import { holeRangeCount, steeringInputSchema, sweepCount } from "@/lib/geometry"
  * route is open to anyone, so one request may cost at most a million (≈ 40 ms). A real layout needs far
  * less: 1,000 points × 50 holes is 51,000. The screen checks the same budget, so both refuse alike.
  */
-export const STEERING_WORK_BUDGET = 1_000_000;
+const STEERING_WORK_BUDGET = 1_000_000;
 
 /**
  * Without a session the same route allows far less: a screen's worth of layout (41 points × 5 holes is about
