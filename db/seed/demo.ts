@@ -8,10 +8,10 @@ export const DEMO_SHOPS = [
     name: "Iron Gully 4x4 Fabrication",
     continuityCode: "aws-d1.1" as const,
     people: [
-      { email: "lead@irongully.example", name: "Dana Corrigan", roles: ["lead"] },
+      { email: "lead@irongully.example", name: "Nell Corrigan", roles: ["lead"] },
       { email: "welder@irongully.example", name: "Mick Tamsin", roles: ["welder"] },
       { email: "welder2@irongully.example", name: "Priya Okafor", roles: ["welder", "inspector"] },
-      { email: "inspector@irongully.example", name: "Rosa Lindqvist", roles: ["inspector"] },
+      { email: "inspector@irongully.example", name: "Ines Lindqvist", roles: ["inspector"] },
       { email: "auditor@irongully.example", name: "Theo Marsh", roles: ["auditor"] },
     ],
   },

@@ -1,9 +1,9 @@
 import { expect, signInAs, test } from "./support";
 
 const homes = [
-  ["lead@irongully.example", "Lead desk", "Dana Corrigan"],
+  ["lead@irongully.example", "Lead desk", "Nell Corrigan"],
   ["welder@irongully.example", "Bench", "Mick Tamsin"],
-  ["inspector@irongully.example", "Inspection desk", "Rosa Lindqvist"],
+  ["inspector@irongully.example", "Inspection desk", "Ines Lindqvist"],
   ["auditor@irongully.example", "Record lookup", "Theo Marsh"],
 ] as const;
 

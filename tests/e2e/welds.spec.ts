@@ -227,7 +227,7 @@ test("a joint is welded, rejected for undercut, repaired in round 2 and accepted
   const rejected = inspector.getByTestId("round-1").getByTestId("round-inspection");
   await expect(rejected).toHaveAttribute("data-decision", "rejected");
   await expect(rejected).toContainText("Rejected");
-  await expect(rejected).toContainText("Rosa Lindqvist");
+  await expect(rejected).toContainText("Ines Lindqvist");
   await expect(rejected).toContainText("AWS D1.1:2020 Table 8.1");
   await expect(rejected.getByTestId("round-rejected-items")).toContainText("Undercut");
   await expect(rejected).toContainText("Undercut at the upper toe");
@@ -339,7 +339,7 @@ test("a lead accepts an out-of-range pass as welded; a lapsed qualification refu
   await pass.getByTestId("override-sign").click();
   await expect(page.getByTestId("pin-dialog")).toContainText("Current 180 A is above the WPS maximum of 165 A.");
   await enterPin(page);
-  await expect(pass.getByTestId("pass-override")).toContainText("Accepted as welded by Dana Corrigan");
+  await expect(pass.getByTestId("pass-override")).toContainText("Accepted as welded by Nell Corrigan");
   await expect(pass.getByTestId("override-1")).toHaveCount(0);
   await expect(page.getByTestId("readiness")).not.toContainText("outside its WPS");
 });

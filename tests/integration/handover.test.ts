@@ -137,7 +137,7 @@ describe("hand-over of the tablet to an inspector", () => {
     const w = step(await record(jobId), "w-1");
     const bad = await api(`/api/jobs/${jobId}/steps/${w.id}/inspections`, {
       session: welder,
-      body: { criteria: "aws-d1.1-static", observations: SOUND_FILLET, decision: "accepted", notes: "", photoIds: [crypto.randomUUID()], pin: PIN, handOver: { membershipId: "rosa" } },
+      body: { criteria: "aws-d1.1-static", observations: SOUND_FILLET, decision: "accepted", notes: "", photoIds: [crypto.randomUUID()], pin: PIN, handOver: { membershipId: "ines" } },
     });
     expect(bad.status).toBe(400);
     expect(bad.json.error.fields["handOver.membershipId"] ?? bad.json.error.fields.handOver).toBeTruthy();

@@ -290,7 +290,7 @@ describe("job header", () => {
     const inspectorId = ids.find((r) => r.email === "inspector@irongully.example").id;
     const first = await api(`/api/jobs/${rec.job.id}`, { session: lead, method: "PATCH", body: { baseVersion: rec.job.version, welderIds: [welderId], inspectorId, dueDate: "2026-03-14" } });
     expect(first.status, first.text).toBe(200);
-    expect(first.json.job).toMatchObject({ welders: [{ name: "Mick Tamsin" }], inspector: { name: "Rosa Lindqvist" }, dueDate: "2026-03-14" });
+    expect(first.json.job).toMatchObject({ welders: [{ name: "Mick Tamsin" }], inspector: { name: "Ines Lindqvist" }, dueDate: "2026-03-14" });
     const stale = await api(`/api/jobs/${rec.job.id}`, { session: lead, method: "PATCH", body: { baseVersion: rec.job.version, notes: "Overwrite?" } });
     expect(stale.status).toBe(409);
     expect(stale.json.error.current.dueDate).toBe("2026-03-14");
@@ -362,7 +362,7 @@ describe("hold points", () => {
     const held = await sign(inspector, rec.job.id, "h-visual");
     expect(held.status, held.text).toBe(201);
     const h = step(held.json.record, "h-visual").signOffs[0];
-    expect(h).toMatchObject({ printedName: "Rosa Lindqvist", role: "inspector", meaning: "inspected" });
+    expect(h).toMatchObject({ printedName: "Ines Lindqvist", role: "inspector", meaning: "inspected" });
     expect(held.json.record.job.status).toBe("in_progress");
     expect(step(held.json.record, "t-nut").lockedBy).toBeNull();
     expect(step(held.json.record, "g-after").lockedBy).toBeNull();
@@ -412,10 +412,10 @@ describe("nonconformances", () => {
     const decided = await api(`/api/jobs/${rec.job.id}/nonconformances/${ncId}/disposition`, { session: lead, body: { disposition: "use_as_is", notes: "Within the bracket's slot adjustment.", pin: PIN } });
     expect(decided.status, decided.text).toBe(201);
     const nc = decided.json.record.nonconformances[0];
-    expect(nc.disposition).toMatchObject({ disposition: "use_as_is", decidedBy: { name: "Dana Corrigan" } });
+    expect(nc.disposition).toMatchObject({ disposition: "use_as_is", decidedBy: { name: "Nell Corrigan" } });
     expect(decided.json.record.job.status).toBe("planned");
     const dso = await withDb(async (c) => (await c.query("select meaning, role, printed_name from sign_off where id = $1", [nc.disposition.signOffId])).rows[0]);
-    expect(dso).toEqual({ meaning: "dispositioned", role: "lead", printed_name: "Dana Corrigan" });
+    expect(dso).toEqual({ meaning: "dispositioned", role: "lead", printed_name: "Nell Corrigan" });
     expect((await api(`/api/jobs/${rec.job.id}/nonconformances/${ncId}/disposition`, { session: inspector, body: { disposition: "scrap", notes: "", pin: PIN } })).status).toBe(409);
     // "Use as is" lets exactly the observed value be signed, under NC-1.
     const signed = await sign(welder2, rec.job.id, "m-gap");
@@ -479,7 +479,7 @@ describe("release and void", () => {
     const released = await api(`/api/jobs/${rec.job.id}/release`, { session: lead, body: { pin: PIN } });
     expect(released.status, released.text).toBe(200);
     expect(released.json.job.status).toBe("released");
-    expect(released.json.releaseSignOff).toMatchObject({ meaning: "released", role: "lead", printedName: "Dana Corrigan" });
+    expect(released.json.releaseSignOff).toMatchObject({ meaning: "released", role: "lead", printedName: "Nell Corrigan" });
     expect((await api(`/api/jobs/${rec.job.id}/void`, { session: lead, body: { reason: "Changed my mind" } })).status).toBe(409);
     await withDb(async (c) => {
       await expect(c.query("update job set notes = 'edited' where id = $1", [rec.job.id])).rejects.toThrow(/closed/);

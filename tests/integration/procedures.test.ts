@@ -134,7 +134,7 @@ describe("versions: numbering, publishing and immutability through the API", () 
     const pub = await api(`/api/procedures/${id}/versions/1/publish`, { session: lead, body: { changeNote: "First issue for the shop." } });
     expect(pub.status, pub.text).toBe(200);
     const sealed = (await api(`/api/procedures/${id}/versions/1`, { session: lead })).json.version;
-    expect(sealed).toMatchObject({ status: "published", changeNote: "First issue for the shop.", publisherName: "Dana Corrigan" });
+    expect(sealed).toMatchObject({ status: "published", changeNote: "First issue for the shop.", publisherName: "Nell Corrigan" });
     // The stored hash is the SHA-256 of the RFC 8785 form of what the API returns.
     expect(sealed.contentHash).toBe(versionHash({ title: sealed.title, scope: sealed.scope, code: sealed.code, content: sealed.content }));
     expect(pub.json.version.contentHash).toBe(sealed.contentHash);

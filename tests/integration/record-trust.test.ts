@@ -89,7 +89,7 @@ async function performedNames(jobId: string) {
 
 describe("the name printed on sign-offs", () => {
   it("a welder's self-service rename is refused and does not change the name printed on their next sign-off", async () => {
-    const renamed = await api("/api/auth/update-user", { session: welder2, body: { name: "Dana Corrigan" } });
+    const renamed = await api("/api/auth/update-user", { session: welder2, body: { name: "Nell Corrigan" } });
     expect(renamed.status).toBe(403);
     expect(renamed.text).toMatch(/set by a lead/);
     const job = await newJob();
@@ -107,7 +107,7 @@ describe("the name printed on sign-offs", () => {
       const set = await api(`/api/people/${membershipId}`, { session: lead, method: "PATCH", body: { legalName: "Priya A. Okafor" } });
       expect(set.status, set.text).toBe(200);
       expect(set.json.person.legalName).toBe("Priya A. Okafor");
-      const refused = await api(`/api/people/${membershipId}`, { session: welder2, method: "PATCH", body: { legalName: "Dana Corrigan" } });
+      const refused = await api(`/api/people/${membershipId}`, { session: welder2, method: "PATCH", body: { legalName: "Nell Corrigan" } });
       expect(refused.status).toBe(403);
       const second = await newJob();
       await signStep(welder2, second.jobId, "c-one", { confirmed: true });

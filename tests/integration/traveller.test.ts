@@ -73,7 +73,7 @@ describe("traveller PDF", () => {
     expect(text).toContain(job.number);
     expect(text).toContain(job.axleTag);
     expect(text).toContain("Mick Tamsin");
-    expect(text).toContain("Rosa Lindqvist");
+    expect(text).toContain("Ines Lindqvist");
     expect(text).toMatch(/performed/i);
     expect(text).toMatch(/inspected/i);
     expect(text).toMatch(/WORK IN PROGRESS/);
@@ -118,7 +118,7 @@ describe("verify and the seal", () => {
     // The housing's tag and the VIN's tail let anyone see a traveller moved to another axle; nothing personal.
     expect(anon.json.axleTag).toBe(job.axleTag);
     expect(anon.json.vinLast6).toBe("042788");
-    for (const secret of [job.customerName, "test@customer.example", "1M8GDM9AXKP042788", "Mick Tamsin", "Rosa Lindqvist"]) {
+    for (const secret of [job.customerName, "test@customer.example", "1M8GDM9AXKP042788", "Mick Tamsin", "Ines Lindqvist"]) {
       expect(anon.text).not.toContain(secret);
     }
     const page = await (await fetch(`${BASE_URL}/verify/${token}`)).text();

@@ -14,7 +14,7 @@ type Rec = Record<string, any>;
 let lead: Session;
 let welder: Session; // Mick Tamsin: GMAW current, FCAW lapsed (demo seed)
 let welder2: Session; // Priya Okafor: welder and inspector
-let inspector: Session; // Rosa Lindqvist
+let inspector: Session; // Ines Lindqvist
 let gmawVersion: string;
 let fcawVersion: string;
 
@@ -136,7 +136,7 @@ describe("weld passes against the WPS and the welder's qualification", () => {
     expect(short.json.error.fields.reason[0]).toMatch(/at least 5 characters/);
     const ok = await api(url, { session: lead, body: { reason: "Procedure qualification record PQR-7 covers 24 V on this joint", pin: PIN } });
     expect(ok.status, ok.text).toBe(201);
-    expect(ok.json.record.passes[0].override).toMatchObject({ by: { name: "Dana Corrigan" } });
+    expect(ok.json.record.passes[0].override).toMatchObject({ by: { name: "Nell Corrigan" } });
     expect((await api(url, { session: lead, body: { reason: "Second time round", pin: PIN } })).status).toBe(409);
     const signed = await signRound(welder, rec.job.id);
     expect(signed.status, signed.text).toBe(201);
@@ -230,7 +230,7 @@ describe("inspection rounds: reject, repair, accept", () => {
     expect(rejected.status, rejected.text).toBe(201);
     r = rejected.json.record;
     expect(w1(r).joint).toMatchObject({ state: "repair", round: 2 });
-    expect(r.inspections[0]).toMatchObject({ round: 1, decision: "rejected", judged: "reject", inspector: { name: "Rosa Lindqvist" } });
+    expect(r.inspections[0]).toMatchObject({ round: 1, decision: "rejected", judged: "reject", inspector: { name: "Ines Lindqvist" } });
     expect(r.inspections[0].items.find((i: Rec) => i.item === "undercut").ok).toBe(false);
     // The hold after it waits for an accepted joint.
     const hold = r.steps.find((x: Rec) => x.key === "h-after");
@@ -242,7 +242,7 @@ describe("inspection rounds: reject, repair, accept", () => {
     for (const email of ["welder@irongully.example", "lead@irongully.example"]) {
       const mail = await waitFor(async () => (await mailsTo(email, `Weld W1 on ${rec.job.number} rejected%`))[0]);
       const parsed = await simpleParser(mail.raw);
-      expect(parsed.text).toContain("Rosa Lindqvist rejected round 1");
+      expect(parsed.text).toContain("Ines Lindqvist rejected round 1");
       expect(parsed.text).toContain("undercut: 1.2 mm deep");
       expect(parsed.text).toContain("repair round 2");
       expect(parsed.html).toContain("Open the joint");

@@ -61,7 +61,7 @@ describe("WPS library: drafts, publishing, revisions", () => {
     expect(patch.json.revision.content.positions).toEqual(["1F", "2F"]);
     const pub = await api(`/api/wps/${w.id}/revisions/1/publish`, { session: lead, body: { changeNote: "First issue for the bracket line." } });
     expect(pub.status, pub.text).toBe(200);
-    expect(pub.json.revision).toMatchObject({ number: 1, status: "published", changeNote: "First issue for the bracket line.", publisherName: "Dana Corrigan" });
+    expect(pub.json.revision).toMatchObject({ number: 1, status: "published", changeNote: "First issue for the bracket line.", publisherName: "Nell Corrigan" });
     expect(pub.json.superseded).toBeNull();
     const got = await api(`/api/wps/${w.id}`, { session: lead });
     expect(got.json.wps).toMatchObject({ reference: w.reference, state: "published", publishedNumber: 1, draftNumber: null });
@@ -146,7 +146,7 @@ describe("WPS library: drafts, publishing, revisions", () => {
     expect((await api(`/api/wps/${w.id}/revisions/1/retire`, { session: lead, body: {} })).status).toBe(400);
     const ret = await api(`/api/wps/${w.id}/revisions/1/retire`, { session: lead, body: { reason: "Filler no longer stocked." } });
     expect(ret.status, ret.text).toBe(200);
-    expect(ret.json.revision).toMatchObject({ status: "retired", retireNote: "Filler no longer stocked.", retiredByName: "Dana Corrigan" });
+    expect(ret.json.revision).toMatchObject({ status: "retired", retireNote: "Filler no longer stocked.", retiredByName: "Nell Corrigan" });
     expect((await api(`/api/wps/${w.id}/revisions/1/retire`, { session: lead, body: { reason: "Again." } })).status).toBe(409);
     expect((await api(`/api/wps/${w.id}`, { session: lead })).json.wps.state).toBe("retired");
     expect(await publishedWpsByReference((await shopIdOf("iron-gully")), w.reference)).toBeNull();

@@ -26,7 +26,7 @@ function performed(round: number): SignOffView {
 function inspection(round: number, decision: "accepted" | "rejected"): InspectionView {
   return {
     id: `i${round}`, stepId: STEP, round, criteria: "aws-d1.1-static", observations: {} as never, items: [], judged: decision === "accepted" ? "accept" : "reject", decision, notes: "", photoIds: ["ph"],
-    inspector: { id: "rosa", name: "Rosa" }, signOffId: `so-i${round}`, inspectedAt: `2026-11-0${round}T12:00:00.000Z`,
+    inspector: { id: "ines", name: "Ines" }, signOffId: `so-i${round}`, inspectedAt: `2026-11-0${round}T12:00:00.000Z`,
   };
 }
 const view = (passes: PassView[], signOffs: SignOffView[], inspections: InspectionView[], ncs: NonconformanceView[] = []) =>
@@ -47,16 +47,16 @@ describe("weld joint rounds", () => {
   it("nobody inspects a joint they put a pass on, even one struck out later", () => {
     const j = view([pass(1, 1), pass(2, 1, { welder: { id: "priya", name: "Priya" }, removed: true })], [performed(1)], []);
     expect(inspectionSeparation(j, "priya")).toMatch(/nobody inspects their own weld/);
-    expect(inspectionSeparation(j, "rosa")).toBeNull();
+    expect(inspectionSeparation(j, "ines")).toBeNull();
   });
 
   it("an out-of-range pass is covered by a lead's override or by a nonconformance raised after it and dispositioned", () => {
     const flagged = pass(1, 1, { outOfRange: true, findings: [{ field: "volts", value: 24, unit: "V", max: 21, ok: false, message: "Voltage 24 V is above the WPS maximum of 21 V." }] });
     expect(view([flagged], [], []).uncovered).toEqual([{ passNumber: 1, messages: ["Voltage 24 V is above the WPS maximum of 21 V."] }]);
-    expect(view([{ ...flagged, override: { reason: "PQR covers it", by: { id: "dana", name: "Dana" }, at: "2026-11-01T10:30:00.000Z" } }], [], []).uncovered).toEqual([]);
+    expect(view([{ ...flagged, override: { reason: "PQR covers it", by: { id: "nell", name: "Nell" }, at: "2026-11-01T10:30:00.000Z" } }], [], []).uncovered).toEqual([]);
     const nc = (raisedAt: string, decided: boolean): NonconformanceView => ({
       id: "nc", number: 1, stepId: STEP, stepKey: "w", stepTitle: "W1", description: "High volts", proposedDisposition: "use_as_is", observed: null, raisedBy: { id: "mick", name: "Mick" }, raisedAt, photoIds: [],
-      disposition: decided ? { disposition: "use_as_is", notes: "", decidedBy: { id: "dana", name: "Dana" }, decidedAt: raisedAt, signOffId: "so-nc", contentHash: "c".repeat(64) } : null,
+      disposition: decided ? { disposition: "use_as_is", notes: "", decidedBy: { id: "nell", name: "Nell" }, decidedAt: raisedAt, signOffId: "so-nc", contentHash: "c".repeat(64) } : null,
     });
     expect(view([flagged], [], [], [nc("2026-11-01T11:00:00.000Z", true)]).uncovered).toEqual([]);
     expect(view([flagged], [], [], [nc("2026-11-01T11:00:00.000Z", false)]).uncovered).toHaveLength(1);

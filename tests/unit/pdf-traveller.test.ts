@@ -121,9 +121,9 @@ describe("traveller text", () => {
     expect(text).toMatch(signed("Performed", PEOPLE.welder2.name, "Welder"));
     expect(text).toMatch(signed("Inspected", PEOPLE.inspector.name, "Inspector"));
     expect(text).toMatch(signed("Performed", PEOPLE.lead.name, "Lead"));
-    expect(text).toContain("Performed Dana Whitlow · Welder · 2026-03-02 07:47 UTC");
+    expect(text).toContain("Performed Nell Whitlow · Welder · 2026-03-02 07:47 UTC");
     // 21 CFR 11.10(e): a correction never obscures the entry it corrects; it points at it with a reason.
-    expect(text).toMatch(/S(\d+) Performed Dana Whitlow · Welder · [\d-]+ [\d:]+ UTC amended by S(\d+)/);
+    expect(text).toMatch(/S(\d+) Performed Nell Whitlow · Welder · [\d-]+ [\d:]+ UTC amended by S(\d+)/);
     expect(text).toContain("Left reading first typed as 521 (digits swapped); re-measured 512 mm.");
     expect(text).toMatch(/Amends S\d+: Left reading first typed/);
   });
@@ -138,16 +138,16 @@ describe("traveller text", () => {
   // ISO 3834-2 (mem): each weld traceable to its welder, WPS and consumable lot.
   it("prints the weld table: joint, welder, WPS, filler lot, preheat, heat input against the WPS and the joint's state", () => {
     const text = all(released);
-    expect(text).toMatch(/J-01 .*?Dana Whitlow .*?WPS-IG-012 ER70S-6 1\.0 mm lot L24-0917 95 1\.02 max 1\.40 within accepted 1 round/);
+    expect(text).toMatch(/J-01 .*?Nell Whitlow .*?WPS-IG-012 ER70S-6 1\.0 mm lot L24-0917 95 1\.02 max 1\.40 within accepted 1 round/);
     expect(text).toMatch(/J-03 .*?Teo Marchetti .*?WPS-IG-014 .*?lot L25-0102 — 1\.46 max 1\.40 over accepted/);
   });
 
   it("prints each pass with its welder, WPS reference and revision, and its heat input judged against that WPS", () => {
     const text = all(released);
-    expect(text).toContain("Pass 1 Dana Whitlow · WPS-IG-012 rev 3 heat input 0.94 kJ/mm (max 1.40) within WPS");
+    expect(text).toContain("Pass 1 Nell Whitlow · WPS-IG-012 rev 3 heat input 0.94 kJ/mm (max 1.40) within WPS");
     expect(text).toContain("Pass 1 Teo Marchetti · WPS-IG-014 rev 1 heat input 1.46 kJ/mm (max 1.40) over WPS");
     // A struck-out pass stays on the record, without a verdict.
-    expect(text).toContain("Pass 3 Dana Whitlow · WPS-IG-012 rev 3 heat input 1.12 kJ/mm (max 1.40) struck out");
+    expect(text).toContain("Pass 3 Nell Whitlow · WPS-IG-012 rev 3 heat input 1.12 kJ/mm (max 1.40) struck out");
     // An out-of-range pass a lead accepted: the finding, then who accepted it, when and why.
     expect(text).toMatch(
       /Pass 2 Teo Marchetti · WPS-IG-014 rev 1 .*? Outside the WPS: Current 262 A is above the WPS maximum of 250 A\. Accepted by lead override Sam Okafor · 2026-03-02 21:40 UTC: Short tie-in/,
@@ -164,10 +164,10 @@ describe("traveller text", () => {
       /Inspection round 1 reject Priya Halvorsen · 2026-03-02 19:15 UTC · AWS D1\.1:2020 Table 8\.1, statically loaded nontubular Undercut: measured 1\.8 mm deep, 40 mm accumulated in 300 mm; limit .*?1\/16 in \(1\.59 mm\)/,
     );
     expect(j02).toContain("Notes: Undercut at the rear toe; grind out and re-weld (NC-1).");
-    expect(j02).toMatch(/Round 2 repair after rejection Pass 4 Dana Whitlow · WPS-IG-012 rev 3 heat input 0\.96 kJ\/mm \(max 1\.40\) within WPS Inspection round 2 accept Priya Halvorsen · 2026-03-02 21:30 UTC/);
+    expect(j02).toMatch(/Round 2 repair after rejection Pass 4 Nell Whitlow · WPS-IG-012 rev 3 heat input 0\.96 kJ\/mm \(max 1\.40\) within WPS Inspection round 2 accept Priya Halvorsen · 2026-03-02 21:30 UTC/);
     expect(j02.indexOf("Inspection round 1")).toBeLessThan(j02.indexOf("Round 2"));
     // The checklist names the round of each sign-off on the weld step.
-    expect(text).toMatch(/Inspected Priya Halvorsen · Inspector · [\d-]+ [\d:]+ UTC · round 1 .*?Performed Dana Whitlow · Welder · [\d-]+ [\d:]+ UTC · round 2 .*?Inspected Priya Halvorsen · Inspector · [\d-]+ [\d:]+ UTC · round 2/);
+    expect(text).toMatch(/Inspected Priya Halvorsen · Inspector · [\d-]+ [\d:]+ UTC · round 1 .*?Performed Nell Whitlow · Welder · [\d-]+ [\d:]+ UTC · round 2 .*?Inspected Priya Halvorsen · Inspector · [\d-]+ [\d:]+ UTC · round 2/);
     expect(released.pages[0]).toContain("3 accepted at their last inspection");
   });
 
@@ -175,7 +175,7 @@ describe("traveller text", () => {
   it("prints the material entries with kind, description, specification, heat or lot number and certificate", () => {
     const text = all(released);
     const materials = text.slice(text.indexOf("Material traceability"));
-    expect(materials).toMatch(/Base metal Lateral link bracket, 10 mm plate EN 10025-2 S355J2 H24-77318 EN 10204 3\.1 MTC-55120 Dana Whitlow/);
+    expect(materials).toMatch(/Base metal Lateral link bracket, 10 mm plate EN 10025-2 S355J2 H24-77318 EN 10204 3\.1 MTC-55120 Nell Whitlow/);
     expect(materials).toMatch(/Filler metal Solid wire 1\.0 mm, 15 kg spool AWS A5\.18 ER70S-6 L24-0917 EN 10204 3\.1 W-2291/);
     expect(materials).toMatch(/Filler metal Solid wire 0\.9 mm, 5 kg spool AWS A5\.18 ER70S-6 L25-0102 — Teo Marchetti/);
     // A correction names why; a withdrawn entry says so in words.

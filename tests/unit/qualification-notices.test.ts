@@ -47,7 +47,7 @@ describe("the lapsing-notice mail", () => {
   it("names the welder, the process, the date it lapses and the days left, in both parts", () => {
     expect(c.expiresOn).toBe("2025-07-11");
     expect(c.daysLeft).toBe(14);
-    const m = noticeMail(q, { name: "Dana Corrigan" }, "http://127.0.0.1:3000/");
+    const m = noticeMail(q, { name: "Nell Corrigan" }, "http://127.0.0.1:3000/");
     expect(m.subject).toBe("Priya Okafor's GTAW qualification lapses on 2025-07-11 (in 14 days)");
     for (const part of [m.text, m.html]) {
       expect(part).toContain("2025-07-11");
@@ -60,13 +60,13 @@ describe("the lapsing-notice mail", () => {
   });
 
   it("escapes what people typed before it goes into the HTML part", () => {
-    const m = noticeMail({ ...q, welderName: "<b>Eve</b>" }, { name: "Dana" }, "http://x.example");
+    const m = noticeMail({ ...q, welderName: "<b>Eve</b>" }, { name: "Nell" }, "http://x.example");
     expect(m.html).not.toContain("<b>Eve</b>");
     expect(m.html).toContain("&lt;b&gt;Eve&lt;/b&gt;");
     expect(m.text).toContain("<b>Eve</b>");
   });
 
   it("says 1 day, not 1 days", () => {
-    expect(noticeMail({ ...q, daysLeft: 1 }, { name: "Dana" }, "http://x.example").subject).toContain("(in 1 day)");
+    expect(noticeMail({ ...q, daysLeft: 1 }, { name: "Nell" }, "http://x.example").subject).toContain("(in 1 day)");
   });
 });

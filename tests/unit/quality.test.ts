@@ -74,10 +74,10 @@ describe("CSV beside each chart", () => {
   it("one row per figure, RFC 4180 line ends, labels beside codes", () => {
     const fpy = yieldCsv({
       overall: { inspected: 8, acceptedFirst: 6, ratio: 0.75 },
-      byWelder: [{ welderId: "u1", welderName: "Dana, Welder", inspected: 8, acceptedFirst: 6, ratio: 0.75 }],
+      byWelder: [{ welderId: "u1", welderName: "Nell, Welder", inspected: 8, acceptedFirst: 6, ratio: 0.75 }],
       byWps: [{ wpsId: null, reference: "GUS-GMAW-02", inspected: 8, acceptedFirst: 6, ratio: 0.75 }],
     });
-    expect(fpy.split("\r\n")).toEqual(["group,name,inspected,accepted_first,ratio", "all,All joints,8,6,0.75", 'welder,"Dana, Welder",8,6,0.75', "wps,GUS-GMAW-02,8,6,0.75", ""]);
+    expect(fpy.split("\r\n")).toEqual(["group,name,inspected,accepted_first,ratio", "all,All joints,8,6,0.75", 'welder,"Nell, Welder",8,6,0.75', "wps,GUS-GMAW-02,8,6,0.75", ""]);
     expect(defectsCsv([{ criterion: "undercut", count: 2 }])).toBe("criterion,label,count\r\nundercut,Undercut,2\r\n");
     const heat = heatCsv([{ wpsId: "w", reference: "GUS-GMAW-02", total: 1, points: [{ at: "2026-12-01T10:00:00.000Z", kJPerMm: 1.3, within: false, limitKJPerMm: 1.2, jobNumber: "J-1", jointId: "W2", passNumber: 1, round: 1, welderName: "A" }] }]);
     expect(heat.split("\r\n")[1]).toBe("GUS-GMAW-02,2026-12-01T10:00:00.000Z,1.3,1.2,no,J-1,W2,1,1,A");

@@ -62,8 +62,8 @@ describe("a job's record as CSV", () => {
   it("lists each visual inspection once, with joint, round, decision, inspector, time and its sign-off's content hash", () => {
     const inspections = of("inspection");
     expect(inspections.map((r) => [col(r, "step"), col(r, "joint"), col(r, "round"), col(r, "meaning"), col(r, "signer"), col(r, "signed_at")])).toEqual([
-      ["w-1", "W1", "1", "rejected", "Rosa Lindqvist", record.inspections[0]!.inspectedAt],
-      ["w-1", "W1", "2", "accepted", "Rosa Lindqvist", record.inspections[1]!.inspectedAt],
+      ["w-1", "W1", "1", "rejected", "Ines Lindqvist", record.inspections[0]!.inspectedAt],
+      ["w-1", "W1", "2", "accepted", "Ines Lindqvist", record.inspections[1]!.inspectedAt],
     ]);
     const signOffs = record.steps[0]!.signOffs;
     expect(col(inspections[0]!, "content_hash")).toBe(signOffs.find((o) => o.id === record.inspections[0]!.signOffId)!.contentHash);
@@ -113,6 +113,6 @@ describe("a job's record as CSV", () => {
     ]);
     expect(JSON.parse(col(materials[0]!, "value"))).toMatchObject({ id: "m-1", superseded: true });
     expect(JSON.parse(col(materials[2]!, "value"))).toMatchObject({ specification: "AWS A5.18 ER70S-6", certificate: "3.1 W-88", superseded: false });
-    expect(col(materials[1]!, "signer")).toBe("Rosa Lindqvist");
+    expect(col(materials[1]!, "signer")).toBe("Ines Lindqvist");
   });
 });
