@@ -794,20 +794,8 @@ const LEGEND: MarkerState[] = ["welding", "awaiting_inspection", "repair", "acce
 function WeldMapSection({ c }: { c: Ctx }) {
   const map = c.d.weldMap;
   if (!map) return null;
-  const maxH = 360;
-  return (
-    <View break>
-      <SectionHead n="4a" title="Weld map" />
-      <View style={{ flexDirection: "row", flexWrap: "wrap", alignItems: "center", marginBottom: 6 }}>
-        <Text style={[s.small, { color: COLOR.body, marginRight: 4 }]}>Where each weld joint is on the part. Marker shape by state:</Text>
-        {LEGEND.map((st) => (
-          <View key={st} style={{ flexDirection: "row", alignItems: "center", marginRight: 8 }}>
-            <MapMark state={st} />
-            <Text style={[s.small, { color: COLOR.body, marginLeft: 2 }]}>{st === "repair" ? "sent back for repair" : MARKER_LOOK[st].word}</Text>
-          </View>
-        ))}
-      </View>
-      {map.images.map((img, n) => {
+  const maxH = 320; // heading, legend, image and its caption on one page at 8 pt text
+  const image = (img: (typeof map.images)[number], n: number) => {
         let w = c.contentWidth;
         let h = (w * img.height) / img.width;
         if (h > maxH) {
@@ -837,7 +825,24 @@ function WeldMapSection({ c }: { c: Ctx }) {
             </View>
           </View>
         );
-      })}
+      };
+  return (
+    <View break>
+      {/* The heading stays on the page of the first image. */}
+      <View wrap={false}>
+        <SectionHead n="4a" title="Weld map" />
+        <View style={{ flexDirection: "row", flexWrap: "wrap", alignItems: "center", marginBottom: 6 }}>
+          <Text style={[s.small, { color: COLOR.body, marginRight: 4 }]}>Where each weld joint is on the part. Marker shape by state:</Text>
+          {LEGEND.map((st) => (
+            <View key={st} style={{ flexDirection: "row", alignItems: "center", marginRight: 8 }}>
+              <MapMark state={st} />
+              <Text style={[s.small, { color: COLOR.body, marginLeft: 2 }]}>{st === "repair" ? "sent back for repair" : MARKER_LOOK[st].word}</Text>
+            </View>
+          ))}
+        </View>
+        {map.images[0] ? image(map.images[0], 0) : null}
+      </View>
+      {map.images.slice(1).map((img, n) => image(img, n + 1))}
       <KeptTable
         head={<Text style={[s.subHead, { marginTop: 4 }]}>Weld joints on the map</Text>}
         cols={WELD_MAP_COLS}
