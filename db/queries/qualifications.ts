@@ -123,20 +123,21 @@ function toRow(r: RawRow, code: ContinuityCode, today: string): QualificationRow
   };
 }
 
+/** Join conditions of a qualification to its welder's membership and to the process's last recorded use. */
+export const QUALIFIED_MEMBER = and(eq(membership.shopId, welderQualification.shopId), eq(membership.userId, welderQualification.welderUserId));
+export const PROCESS_LAST_USE = and(
+  eq(welderProcessUse.shopId, welderQualification.shopId),
+  eq(welderProcessUse.welderUserId, welderQualification.welderUserId),
+  eq(welderProcessUse.process, welderQualification.process),
+);
+
 function baseQuery(today: string, where: SQL | undefined) {
   return db()
     .select(rowColumns(today))
     .from(welderQualification)
     .innerJoin(user, eq(user.id, welderQualification.welderUserId))
-    .innerJoin(membership, and(eq(membership.shopId, welderQualification.shopId), eq(membership.userId, welderQualification.welderUserId)))
-    .leftJoin(
-      welderProcessUse,
-      and(
-        eq(welderProcessUse.shopId, welderQualification.shopId),
-        eq(welderProcessUse.welderUserId, welderQualification.welderUserId),
-        eq(welderProcessUse.process, welderQualification.process),
-      ),
-    )
+    .innerJoin(membership, QUALIFIED_MEMBER)
+    .leftJoin(welderProcessUse, PROCESS_LAST_USE)
     .leftJoin(wps, eq(wps.id, welderQualification.wpsId))
     .where(where);
 }
@@ -200,15 +201,8 @@ export async function continuityCounts(shopId: string, today = todayIso()) {
       current: sql<number>`count(*) filter (where ${d} > ${LAPSING_WINDOW_DAYS})::int`,
     })
     .from(welderQualification)
-    .innerJoin(membership, and(eq(membership.shopId, welderQualification.shopId), eq(membership.userId, welderQualification.welderUserId)))
-    .leftJoin(
-      welderProcessUse,
-      and(
-        eq(welderProcessUse.shopId, welderQualification.shopId),
-        eq(welderProcessUse.welderUserId, welderQualification.welderUserId),
-        eq(welderProcessUse.process, welderQualification.process),
-      ),
-    )
+    .innerJoin(membership, QUALIFIED_MEMBER)
+    .leftJoin(welderProcessUse, PROCESS_LAST_USE)
     .where(and(eq(welderQualification.shopId, shopId), activeWelder));
   return { lapsed: row?.lapsed ?? 0, lapsing: row?.lapsing ?? 0, current: row?.current ?? 0, code };
 }

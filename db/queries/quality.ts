@@ -9,7 +9,7 @@ import { db } from "@/lib/db";
 import { AppError } from "@/lib/errors";
 import { MAX_HEAT_POINTS, ratio, type HeatPoint, type QualityFigures } from "@/lib/quality/schema";
 import { countOpenNonconformances } from "./jobs-nc";
-import { daysLeftSql, expiresOnSql, shopContinuityCode } from "./qualifications";
+import { daysLeftSql, expiresOnSql, PROCESS_LAST_USE, QUALIFIED_MEMBER, shopContinuityCode } from "./qualifications";
 
 const DAY_MS = 86_400_000;
 
@@ -300,15 +300,8 @@ async function lapsingQualifications(r: Resolved, today: string): Promise<Qualit
     })
     .from(welderQualification)
     .innerJoin(user, eq(user.id, welderQualification.welderUserId))
-    .innerJoin(membership, and(eq(membership.shopId, welderQualification.shopId), eq(membership.userId, welderQualification.welderUserId)))
-    .leftJoin(
-      welderProcessUse,
-      and(
-        eq(welderProcessUse.shopId, welderQualification.shopId),
-        eq(welderProcessUse.welderUserId, welderQualification.welderUserId),
-        eq(welderProcessUse.process, welderQualification.process),
-      ),
-    )
+    .innerJoin(membership, QUALIFIED_MEMBER)
+    .leftJoin(welderProcessUse, PROCESS_LAST_USE)
     .where(and(...filters))
     .orderBy(sql`${daysLeft}`, user.name);
   const lapsing = rows.filter((x) => x.daysLeft > 0);

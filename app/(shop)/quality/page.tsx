@@ -43,7 +43,7 @@ function Table({ caption, head, rows, testId }: { caption: string; head: string[
           ) : (
             rows.map((r, i) => (
               <tr key={i} className="border-t border-graphite-100">
-                {r.map((c, j) => <td key={j} className={`px-3 py-2 ${j > 0 ? "figures" : ""}`}>{c}</td>)}
+                {r.map((c, j) => <td key={j} className={`px-3 py-2 ${j > 0 ? "figures whitespace-nowrap" : ""}`}>{c}</td>)}
               </tr>
             ))
           )}
@@ -90,31 +90,13 @@ export default async function QualityPage({ searchParams }: { searchParams: Prom
           <p className="field-error" data-testid="error-to">{errors.to}</p>
         </div>
         {shopWide ? (
-          <div>
-            <label className="field-label" htmlFor="qwelder">Welder</label>
-            <select id="qwelder" name="welderId" defaultValue={flat.welderId ?? ""} className="field-input min-h-12">
-              <option value="">Every welder</option>
-              {options.welders.map((w) => <option key={w.id} value={w.id}>{w.name}</option>)}
-            </select>
-            <p className="field-error">{errors.welderId}</p>
-          </div>
+          <FilterSelect id="qwelder" name="welderId" label="Welder" all="Every welder" value={flat.welderId} error={errors.welderId}
+            options={options.welders.map((w) => ({ id: w.id, label: w.name }))} />
         ) : null}
-        <div>
-          <label className="field-label" htmlFor="qwps">WPS</label>
-          <select id="qwps" name="wpsId" defaultValue={flat.wpsId ?? ""} className="field-input min-h-12">
-            <option value="">Every WPS</option>
-            {options.wps.map((w) => <option key={w.id} value={w.id}>{w.reference}</option>)}
-          </select>
-          <p className="field-error">{errors.wpsId}</p>
-        </div>
-        <div>
-          <label className="field-label" htmlFor="qproc">Procedure</label>
-          <select id="qproc" name="procedureId" defaultValue={flat.procedureId ?? ""} className="field-input min-h-12 max-w-72">
-            <option value="">Every procedure</option>
-            {options.procedures.map((p) => <option key={p.id} value={p.id}>{p.title}</option>)}
-          </select>
-          <p className="field-error">{errors.procedureId}</p>
-        </div>
+        <FilterSelect id="qwps" name="wpsId" label="WPS" all="Every WPS" value={flat.wpsId} error={errors.wpsId}
+          options={options.wps.map((w) => ({ id: w.id, label: w.reference }))} />
+        <FilterSelect id="qproc" name="procedureId" label="Procedure" all="Every procedure" value={flat.procedureId} error={errors.procedureId} wide
+          options={options.procedures.map((p) => ({ id: p.id, label: p.title }))} />
         <div className="flex gap-2 self-center">
           <button className="btn btn-primary min-h-12" type="submit">Show</button>
           <Link className="btn btn-quiet min-h-12" href="/quality">Last 90 days</Link>
@@ -223,5 +205,27 @@ export default async function QualityPage({ searchParams }: { searchParams: Prom
         </div>
       )}
     </>
+  );
+}
+
+function FilterSelect(props: {
+  id: string;
+  name: string;
+  label: string;
+  all: string;
+  value: string | undefined;
+  error: string | undefined;
+  options: { id: string; label: string }[];
+  wide?: boolean;
+}) {
+  return (
+    <div>
+      <label className="field-label" htmlFor={props.id}>{props.label}</label>
+      <select id={props.id} name={props.name} defaultValue={props.value ?? ""} className={`field-input min-h-12 ${props.wide ? "max-w-72" : ""}`}>
+        <option value="">{props.all}</option>
+        {props.options.map((o) => <option key={o.id} value={o.id}>{o.label}</option>)}
+      </select>
+      <p className="field-error">{props.error}</p>
+    </div>
   );
 }

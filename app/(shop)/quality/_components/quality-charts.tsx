@@ -10,36 +10,38 @@ const AXIS = { fill: "#171b1a", fontSize: 12 };
 const INK = "#171b1a";
 const ACCENT = "#6f8f1f";
 
-export function YieldChart({ rows, testId }: { rows: { name: string; ratio: number | null; inspected: number }[]; testId: string }) {
-  const data = rows.filter((r) => r.ratio !== null).map((r) => ({ name: r.name, pct: Math.round((r.ratio ?? 0) * 1000) / 10, inspected: r.inspected }));
+// One horizontal bar per row, its value written at the bar's end.
+function HorizontalBars(props: {
+  testId: string;
+  data: { name: string; value: number }[];
+  fill: string;
+  labelWidth: number;
+  percent?: boolean;
+}) {
+  const { data, percent } = props;
+  const unit = (v: unknown) => (percent ? `${String(v)} %` : String(v));
   return (
-    <div data-testid={testId} aria-hidden="true">
+    <div data-testid={props.testId} aria-hidden="true">
       <BarChart responsive layout="vertical" style={{ width: "100%", height: 44 + data.length * 40 }} data={data} margin={{ top: 4, right: 48, bottom: 4, left: 8 }}>
         <CartesianGrid stroke="#cdd1cf" strokeDasharray="2 4" horizontal={false} />
-        <XAxis type="number" domain={[0, 100]} tick={AXIS} tickFormatter={(v: number) => `${v} %`} />
-        <YAxis type="category" dataKey="name" tick={AXIS} width={120} />
-        <Bar dataKey="pct" fill={ACCENT} stroke={INK} isAnimationActive={false}>
-          <LabelList dataKey="pct" position="right" formatter={(v) => `${String(v)} %`} style={{ fill: INK, fontSize: 12 }} />
+        {percent ? <XAxis type="number" domain={[0, 100]} tick={AXIS} tickFormatter={unit} /> : <XAxis type="number" allowDecimals={false} tick={AXIS} />}
+        <YAxis type="category" dataKey="name" tick={AXIS} width={props.labelWidth} />
+        <Bar dataKey="value" fill={props.fill} stroke={INK} isAnimationActive={false}>
+          <LabelList dataKey="value" position="right" formatter={unit} style={{ fill: INK, fontSize: 12 }} />
         </Bar>
       </BarChart>
     </div>
   );
 }
 
+export function YieldChart({ rows, testId }: { rows: { name: string; ratio: number | null; inspected: number }[]; testId: string }) {
+  const data = rows.filter((r) => r.ratio !== null).map((r) => ({ name: r.name, value: Math.round((r.ratio ?? 0) * 1000) / 10 }));
+  return <HorizontalBars testId={testId} data={data} fill={ACCENT} labelWidth={120} percent />;
+}
+
 export function DefectsChart({ defects }: { defects: QualityFigures["defects"] }) {
-  const data = [...defects].sort((a, b) => b.count - a.count).map((d) => ({ name: defectLabel(d.criterion), count: d.count }));
-  return (
-    <div data-testid="defects-chart" aria-hidden="true">
-      <BarChart responsive layout="vertical" style={{ width: "100%", height: 44 + data.length * 40 }} data={data} margin={{ top: 4, right: 40, bottom: 4, left: 8 }}>
-        <CartesianGrid stroke="#cdd1cf" strokeDasharray="2 4" horizontal={false} />
-        <XAxis type="number" allowDecimals={false} tick={AXIS} />
-        <YAxis type="category" dataKey="name" tick={AXIS} width={130} />
-        <Bar dataKey="count" fill="#58605d" stroke={INK} isAnimationActive={false}>
-          <LabelList dataKey="count" position="right" style={{ fill: INK, fontSize: 12 }} />
-        </Bar>
-      </BarChart>
-    </div>
-  );
+  const data = [...defects].sort((a, b) => b.count - a.count).map((d) => ({ name: defectLabel(d.criterion), value: d.count }));
+  return <HorizontalBars testId="defects-chart" data={data} fill="#58605d" labelWidth={130} />;
 }
 
 type Mark = "in" | "signal" | "over";
