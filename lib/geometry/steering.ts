@@ -139,48 +139,32 @@ export function candidateList(input: SteeringInput): { y: number; z: number; lab
 }
 
 /**
- * Signed drag-link error of largest magnitude over the heave sweep for one lateral-link vector.
- * The hot loop of the hole ranking: scalars only, no allocation.
+ * The points of a sweep as moves of the axle, precomputed once. At point i the lateral link's axle end (at
+ * (ay, az) from the roll centre) moves by (p + c1·ay − sn·az, q + sn·ay + c1·az) and the steering-arm end by
+ * (kdy, kdz), both before the lateral shift s. Heave is p = 0, q = kdz = h, no turn; roll is the turn alone,
+ * sn = sin φ and c1 = cos φ − 1 (as −2 sin²(φ/2), free of cancellation for small φ). Adding the zeros is exact, so
+ * every sweep below evaluates the same figures as computeSteeringGeometry's own heave and roll loops.
  */
-function worstHeaveError(link: Link, drag: Link, travels: Float64Array, label: string): number {
-  const { ey, ez, l2, sgn } = link;
-  const dy0 = drag.ey;
-  const dz0 = drag.ez;
-  const dl2 = drag.l2;
-  const dsgn = drag.sgn;
-  let worstAbs = -1;
-  let worst = 0;
-  for (const h of travels) {
-    const s = correction(ey, ez, l2, sgn, 0, h);
-    if (s !== s) throw unreachable(`lateral link with hole ${label}`, `at travel ${fmt(h, "mm")}`);
-    const d = correction(dy0, dz0, dl2, dsgn, s, h);
-    if (d !== d) throw unreachable("drag link", `at travel ${fmt(h, "mm")} (hole ${label})`);
-    const a = d < 0 ? -d : d;
-    if (a > worstAbs) {
-      worstAbs = a;
-      worst = d;
-    }
-  }
-  return worst;
-}
-
-
-/**
- * Roll sweep precomputed once: sin φ, cos φ − 1 (as −2 sin²(φ/2), free of cancellation for small φ) and the
- * steering-arm end's move by the rotation alone. Every sweep below evaluates the same expressions in the same
- * order as computeSteeringGeometry's own roll loop, so a figure found here is the figure the answer lists.
- */
-interface RollTable {
-  phi: Float64Array;
+interface Moves {
+  /** Travel (mm) or roll angle (deg) of each point, to say where. */
+  at: Float64Array;
+  p: Float64Array;
+  q: Float64Array;
   sn: Float64Array;
   c1: Float64Array;
   kdy: Float64Array;
   kdz: Float64Array;
 }
 
-function makeRollTable(angles: Float64Array, K: Point2, C: Point2): RollTable {
+function heaveMoves(travels: Float64Array): Moves {
+  const zero = new Float64Array(travels.length);
+  return { at: travels, p: zero, q: travels, sn: zero, c1: zero, kdy: zero, kdz: travels };
+}
+
+function rollMoves(angles: Float64Array, K: Point2, C: Point2): Moves {
   const n = angles.length;
-  const t: RollTable = { phi: angles, sn: new Float64Array(n), c1: new Float64Array(n), kdy: new Float64Array(n), kdz: new Float64Array(n) };
+  const zero = new Float64Array(n);
+  const t: Moves = { at: angles, p: zero, q: zero, sn: new Float64Array(n), c1: new Float64Array(n), kdy: new Float64Array(n), kdz: new Float64Array(n) };
   const ky = K.y - C.y;
   const kz = K.z - C.z;
   for (let i = 0; i < n; i++) {
@@ -196,83 +180,93 @@ function makeRollTable(angles: Float64Array, K: Point2, C: Point2): RollTable {
   return t;
 }
 
-/** Signed drag-link error of largest |d| over the heave points; NaN when a link cannot reach. */
-function heaveWorstD(ey: number, ez: number, l2: number, sgn: number, drag: Link, travels: Float64Array): number {
-  let worstAbs = -1;
-  let worst = 0;
-  for (let i = 0; i < travels.length; i++) {
-    const h = travels[i]!;
-    const s = correction(ey, ez, l2, sgn, 0, h);
-    if (s !== s) return Number.NaN;
-    const d = correction(drag.ey, drag.ez, drag.l2, drag.sgn, s, h);
-    if (d !== d) return Number.NaN;
-    const a = d < 0 ? -d : d;
-    if (a > worstAbs) {
-      worstAbs = a;
-      worst = d;
-    }
-  }
-  return worst;
+/** Every `stride`-th point of a long sweep (both ends kept), for the optimum's dense first pass. */
+function thinMoves(m: Moves, keep: number): Moves {
+  const n = m.at.length;
+  if (n <= keep) return m;
+  const stride = (n - 1) / (keep - 1);
+  const pick = (a: Float64Array) => {
+    const out = new Float64Array(keep);
+    for (let i = 0; i < keep; i++) out[i] = a[Math.round(i * stride)]!;
+    return out;
+  };
+  return { at: pick(m.at), p: pick(m.p), q: pick(m.q), sn: pick(m.sn), c1: pick(m.c1), kdy: pick(m.kdy), kdz: pick(m.kdz) };
+}
+
+/** A constant extra move of both ends, added to every point: one roll angle under the heave sweep. */
+interface Offset {
+  ay: number;
+  az: number;
+  ky: number;
+  kz: number;
+}
+const NO_OFFSET: Offset = { ay: 0, az: 0, ky: 0, kz: 0 };
+
+interface Worst {
+  /** Signed drag-link error of largest |d| (first one on a tie); NaN when a link cannot reach. */
+  d: number;
+  /** Index of that point, or of the point where a link could not reach. */
+  i: number;
+  fail: "lateral link" | "drag link" | null;
 }
 
 /**
- * Signed drag-link error of largest |d| over the roll points; (ay, az) is the axle-borne lateral-link end
- * relative to the roll centre. NaN when a link cannot reach.
+ * The one hot loop: over the points of a sweep, the signed drag-link error of largest |d| for the lateral link
+ * e = (ey, ez) whose axle end sits at (ay, az) from the roll centre. Scalars only, no allocation inside.
  */
-function rollWorstD(ey: number, ez: number, l2: number, sgn: number, drag: Link, roll: RollTable, ay: number, az: number): number {
+function worstOver(ey: number, ez: number, l2: number, sgn: number, drag: Link, m: Moves, ay: number, az: number, off: Offset = NO_OFFSET): Worst {
+  const { p, q, sn, c1, kdy, kdz } = m;
   let worstAbs = -1;
   let worst = 0;
-  for (let i = 0; i < roll.phi.length; i++) {
-    const sn = roll.sn[i]!;
-    const c1 = roll.c1[i]!;
-    const s = correction(ey, ez, l2, sgn, c1 * ay - sn * az, sn * ay + c1 * az);
-    if (s !== s) return Number.NaN;
-    const d = correction(drag.ey, drag.ez, drag.l2, drag.sgn, roll.kdy[i]! + s, roll.kdz[i]!);
-    if (d !== d) return Number.NaN;
+  let at = 0;
+  for (let i = 0; i < p.length; i++) {
+    const s = correction(ey, ez, l2, sgn, off.ay + (p[i]! + (c1[i]! * ay - sn[i]! * az)), off.az + (q[i]! + (sn[i]! * ay + c1[i]! * az)));
+    if (s !== s) return { d: Number.NaN, i, fail: "lateral link" };
+    const d = correction(drag.ey, drag.ez, drag.l2, drag.sgn, off.ky + kdy[i]! + s, off.kz + kdz[i]!);
+    if (d !== d) return { d: Number.NaN, i, fail: "drag link" };
     const a = d < 0 ? -d : d;
     if (a > worstAbs) {
       worstAbs = a;
       worst = d;
+      at = i;
     }
   }
-  return worst;
+  return { d: worst, i: at, fail: null };
+}
+
+/** Every point of a sweep with its lateral shift, drag-link error and wheel steer, for the answer's lists; throws where a link cannot reach. */
+function sweepPoints(link: Link, drag: Link, m: Moves, ay: number, az: number, r: number, where: (at: number) => string): { points: { at: number; s: number; d: number; steer: number }[]; worst: number } {
+  const points: { at: number; s: number; d: number; steer: number }[] = [];
+  let worst = 0;
+  for (let i = 0; i < m.at.length; i++) {
+    const at = m.at[i]!;
+    const s = correction(link.ey, link.ez, link.l2, link.sgn, m.p[i]! + (m.c1[i]! * ay - m.sn[i]! * az), m.q[i]! + (m.sn[i]! * ay + m.c1[i]! * az));
+    if (s !== s) throw unreachable("lateral link", where(at));
+    const d = correction(drag.ey, drag.ez, drag.l2, drag.sgn, m.kdy[i]! + s, m.kdz[i]!);
+    if (d !== d) throw unreachable("drag link", where(at));
+    const steer = wheelSteerDeg(d, r, where(at));
+    points.push({ at, s, d, steer });
+    if (Math.abs(steer) > Math.abs(points[worst]!.steer)) worst = i;
+  }
+  return { points, worst };
 }
 
 /**
  * Combined articulation: every heave point at every roll angle (the axle turned about the roll centre, then
- * lifted by h and shifted by s). NaN when a link cannot reach somewhere on the grid.
+ * lifted by h and shifted by s). Null when a link cannot reach somewhere on the grid.
  */
-function combinedWorst(
-  ey: number,
-  ez: number,
-  l2: number,
-  sgn: number,
-  drag: Link,
-  travels: Float64Array,
-  roll: RollTable,
-  ay: number,
-  az: number,
-): { d: number; travel: number; rollDeg: number } | null {
+function combinedWorst(ey: number, ez: number, l2: number, sgn: number, drag: Link, heave: Moves, roll: Moves, ay: number, az: number): { d: number; travel: number; rollDeg: number } | null {
   let worstAbs = -1;
   let out = { d: 0, travel: 0, rollDeg: 0 };
-  for (let i = 0; i < roll.phi.length; i++) {
+  for (let i = 0; i < roll.at.length; i++) {
     const sn = roll.sn[i]!;
     const c1 = roll.c1[i]!;
-    const ady = c1 * ay - sn * az;
-    const adz = sn * ay + c1 * az;
-    const kdy = roll.kdy[i]!;
-    const kdz = roll.kdz[i]!;
-    for (let j = 0; j < travels.length; j++) {
-      const h = travels[j]!;
-      const s = correction(ey, ez, l2, sgn, ady, adz + h);
-      if (s !== s) return null;
-      const d = correction(drag.ey, drag.ez, drag.l2, drag.sgn, kdy + s, kdz + h);
-      if (d !== d) return null;
-      const a = d < 0 ? -d : d;
-      if (a > worstAbs) {
-        worstAbs = a;
-        out = { d, travel: h, rollDeg: roll.phi[i]! };
-      }
+    const w = worstOver(ey, ez, l2, sgn, drag, heave, ay, az, { ay: c1 * ay - sn * az, az: sn * ay + c1 * az, ky: roll.kdy[i]!, kz: roll.kdz[i]! });
+    if (w.fail) return null;
+    const a = Math.abs(w.d);
+    if (a > worstAbs) {
+      worstAbs = a;
+      out = { d: w.d, travel: heave.at[w.i]!, rollDeg: roll.at[i]! };
     }
   }
   return out;
@@ -291,14 +285,6 @@ const OPT_TOL_MM = 1e-7;
 /** Heave and roll points used by the dense pass when the sweeps are long (refinement always uses them all). */
 const OPT_THIN = 257;
 
-function thinned(values: Float64Array, keep: number): Float64Array {
-  if (values.length <= keep) return values;
-  const out = new Float64Array(keep);
-  const stride = (values.length - 1) / (keep - 1);
-  for (let i = 0; i < keep; i++) out[i] = values[Math.round(i * stride)]!;
-  return out;
-}
-
 /**
  * Best height for one lateral-link end on the vertical through its current joint, by the largest |drag-link
  * error| over the heave and roll points (|steer| = asin(|d|/r) rises with |d|, so the same height wins).
@@ -314,28 +300,26 @@ function findOptimum(
   C: Point2,
   drag: Link,
   r: number,
-  travels: Float64Array,
-  roll: RollTable | null,
+  heave: Moves,
+  roll: Moves | null,
   hint: number | undefined,
 ): { z: number; d: number; min: number; max: number } {
-  const lineY = end === "axle" ? A.y : F.y;
   const ey = A.y - F.y;
   const current = end === "axle" ? A.z : F.z;
   // ez of the link vector F → A as a function of the height z of the moving end.
   const ezOf = end === "axle" ? (z: number) => z - F.z : (z: number) => A.z - z;
   const ay = A.y - C.y;
   const sgn = ey > 0 ? 1 : -1;
-  const thinTravels = thinned(travels, OPT_THIN);
-  const thinRoll = roll && roll.phi.length > OPT_THIN ? makeThinRoll(roll, OPT_THIN) : roll;
-  const evaluate = (z: number, tr: Float64Array, rt: RollTable | null): number => {
+  const thinHeave = thinMoves(heave, OPT_THIN);
+  const thinRoll = roll ? thinMoves(roll, OPT_THIN) : null;
+  const evaluate = (z: number, hv: Moves, rl: Moves | null): number => {
     const ez = ezOf(z);
     const l2 = ey * ey + ez * ez;
-    const dh = heaveWorstD(ey, ez, l2, sgn, drag, tr);
-    if (dh !== dh) return Number.NaN;
-    let d = dh;
-    if (rt) {
-      const az = (end === "axle" ? z : A.z) - C.z;
-      const dr = rollWorstD(ey, ez, l2, sgn, drag, rt, ay, az);
+    const az = (end === "axle" ? z : A.z) - C.z;
+    let d = worstOver(ey, ez, l2, sgn, drag, hv, ay, az).d;
+    if (d !== d) return Number.NaN;
+    if (rl) {
+      const dr = worstOver(ey, ez, l2, sgn, drag, rl, ay, az).d;
       if (dr !== dr) return Number.NaN;
       if (Math.abs(dr) > Math.abs(d)) d = dr;
     }
@@ -346,8 +330,8 @@ function findOptimum(
 
   // Heights at which the link reaches over the heave sweep (closed form), within the coordinate bounds.
   // For the link vector e = (ey, ez): ey² − 2·ez·h − h² ≥ 0 at every travel h (axle end), mirrored for the frame end.
-  const bump = travels[travels.length - 1]!;
-  const droop = -travels[0]!;
+  const bump = heave.at[heave.at.length - 1]!;
+  const droop = -heave.at[0]!;
   let ezLo = -Infinity;
   let ezHi = Infinity;
   if (bump > 0) ezHi = Math.min(ezHi, (ey * ey - bump * bump) / (2 * bump));
@@ -381,12 +365,12 @@ function findOptimum(
   zs.push(current);
   zs.sort((a, b) => a - b);
   const grid = zs.filter((z, i) => i === 0 || z !== zs[i - 1]);
-  const rough = grid.map((z) => score(evaluate(z, thinTravels, thinRoll)));
+  const rough = grid.map((z) => score(evaluate(z, thinHeave, thinRoll)));
 
   let bestZ = current;
-  let bestD = evaluate(current, travels, roll);
+  let bestD = evaluate(current, heave, roll);
   const consider = (z: number): number => {
-    const d = evaluate(z, travels, roll);
+    const d = evaluate(z, heave, roll);
     const sc = score(d);
     if (sc < score(bestD) || (sc === score(bestD) && Math.abs(z - current) < Math.abs(bestZ - current))) {
       bestZ = z;
@@ -437,7 +421,7 @@ function findOptimum(
       iMax = i;
     }
   }
-  const feasible = (z: number) => Number.isFinite(score(evaluate(z, travels, roll)));
+  const feasible = (z: number) => Number.isFinite(score(evaluate(z, heave, roll)));
   const edge = (inside: number, outside: number): number => {
     let a = inside;
     let b = outside;
@@ -452,19 +436,7 @@ function findOptimum(
     fMin = Math.min(bestZ, iMin > 0 ? edge(grid[iMin]!, grid[iMin - 1]!) : grid[iMin]!);
     fMax = Math.max(bestZ, iMax < grid.length - 1 ? edge(grid[iMax]!, grid[iMax + 1]!) : grid[iMax]!);
   }
-  void lineY;
   return { z: bestZ, d: bestD, min: fMin, max: fMax };
-}
-
-function makeThinRoll(roll: RollTable, keep: number): RollTable {
-  const n = roll.phi.length;
-  const stride = (n - 1) / (keep - 1);
-  const pick = (a: Float64Array) => {
-    const out = new Float64Array(keep);
-    for (let i = 0; i < keep; i++) out[i] = a[Math.round(i * stride)]!;
-    return out;
-  };
-  return { phi: pick(roll.phi), sn: pick(roll.sn), c1: pick(roll.c1), kdy: pick(roll.kdy), kdz: pick(roll.kdz) };
 }
 
 /** D·sin(steer): how far the rim's front edge moves relative to its back edge, same sign as the steer. */
@@ -492,50 +464,30 @@ export function computeSteeringGeometry(input: SteeringInput): SteeringResult {
   const drag = makeLink(P, K, "drag link");
   const travels = sweepValues(0 - input.travel.droop, input.travel.bump, input.travel.step, "travel");
 
+  const ayNow = A.y - C.y;
+  const azNow = A.z - C.z;
+  const heaveM = heaveMoves(travels);
   const heave: HeavePoint[] = [];
-  let wh: WorstHeave | undefined;
-  for (const h of travels) {
-    const s = correction(link.ey, link.ez, link.l2, link.sgn, 0, h);
-    if (s !== s) throw unreachable("lateral link", `at travel ${fmt(h, "mm")}`);
-    const d = correction(drag.ey, drag.ez, drag.l2, drag.sgn, s, h);
-    if (d !== d) throw unreachable("drag link", `at travel ${fmt(h, "mm")}`);
-    const steer = wheelSteerDeg(d, r, `at travel ${fmt(h, "mm")}`);
-    const p: HeavePoint = { travel: h, axleShift: s, dragLinkError: d, wheelSteerDeg: steer };
-    if (ratio !== undefined) p.steeringWheelDeg = steer * ratio;
+  const hs = sweepPoints(link, drag, heaveM, ayNow, azNow, r, (h) => `at travel ${fmt(h, "mm")}`);
+  for (const pt of hs.points) {
+    const p: HeavePoint = { travel: pt.at, axleShift: pt.s, dragLinkError: pt.d, wheelSteerDeg: pt.steer };
+    if (ratio !== undefined) p.steeringWheelDeg = pt.steer * ratio;
     heave.push(p);
-    if (!wh || Math.abs(steer) > Math.abs(wh.wheelSteerDeg)) {
-      wh = { travel: h, wheelSteerDeg: steer, dragLinkError: d };
-    }
   }
   // sweepValues always yields at least one point.
-  const worstHeave = wh as WorstHeave;
+  const wh = hs.points[hs.worst]!;
+  const worstHeave: WorstHeave = { travel: wh.at, wheelSteerDeg: wh.steer, dragLinkError: wh.d };
 
-  const roll: RollPoint[] = [];
+  let roll: RollPoint[] = [];
   let wr: WorstRoll | null = null;
-  let table: RollTable | null = null;
+  let table: Moves | null = null;
   if (input.roll) {
     const angles = sweepValues(0 - input.roll.maxDeg, input.roll.maxDeg, input.roll.stepDeg, "roll");
-    table = makeRollTable(angles, K, C);
-    const ay = A.y - C.y;
-    const az = A.z - C.z;
-    const ky = K.y - C.y;
-    const kz = K.z - C.z;
-    for (const phi of angles) {
-      const t = phi * RAD;
-      const sn = Math.sin(t);
-      const half = Math.sin(t / 2);
-      // cos φ − 1 as −2 sin²(φ/2): keeps small rotations free of cancellation.
-      const c1 = -2 * half * half;
-      const s = correction(link.ey, link.ez, link.l2, link.sgn, c1 * ay - sn * az, sn * ay + c1 * az);
-      if (s !== s) throw unreachable("lateral link", `at roll ${fmt(phi, "deg")}`);
-      const d = correction(drag.ey, drag.ez, drag.l2, drag.sgn, c1 * ky - sn * kz + s, sn * ky + c1 * kz);
-      if (d !== d) throw unreachable("drag link", `at roll ${fmt(phi, "deg")}`);
-      const steer = wheelSteerDeg(d, r, `at roll ${fmt(phi, "deg")}`);
-      roll.push({ rollDeg: phi, axleShift: s, dragLinkError: d, wheelSteerDeg: steer });
-      if (!wr || Math.abs(steer) > Math.abs(wr.wheelSteerDeg)) {
-        wr = { rollDeg: phi, wheelSteerDeg: steer, dragLinkError: d };
-      }
-    }
+    table = rollMoves(angles, K, C);
+    const rs = sweepPoints(link, drag, table, ayNow, azNow, r, (phi) => `at roll ${fmt(phi, "deg")}`);
+    roll = rs.points.map((pt) => ({ rollDeg: pt.at, axleShift: pt.s, dragLinkError: pt.d, wheelSteerDeg: pt.steer }));
+    const w = rs.points[rs.worst]!;
+    wr = { rollDeg: w.at, wheelSteerDeg: w.steer, dragLinkError: w.d };
   }
 
   const rollWins = wr !== null && Math.abs(wr.wheelSteerDeg) > Math.abs(worstHeave.wheelSteerDeg);
@@ -580,14 +532,13 @@ export function computeSteeringGeometry(input: SteeringInput): SteeringResult {
 
   // Combined articulation is a grid (heave × roll) per candidate: computed only while it stays within bounds.
   const wantHoles = input.candidateHoles !== undefined || input.holeRange !== undefined;
-  const gridPoints = table ? travels.length * table.phi.length : 0;
+  const gridPoints = table ? travels.length * table.at.length : 0;
   const combinedOn = table !== null && gridPoints * (1 + (wantHoles ? holes.length : 0)) <= COMBINED_MAX_EVALUATIONS;
   if (table && !combinedOn) {
     result.combinedSkipped = `${(gridPoints * (1 + holes.length)).toLocaleString("en-US")} heave × roll evaluations is more than ${COMBINED_MAX_EVALUATIONS.toLocaleString("en-US")}; use larger steps to see combined articulation`;
   }
-  const ayNow = A.y - C.y;
   if (table && combinedOn) {
-    const c = combinedWorst(link.ey, link.ez, link.l2, link.sgn, drag, travels, table, ayNow, A.z - C.z);
+    const c = combinedWorst(link.ey, link.ez, link.l2, link.sgn, drag, heaveM, table, ayNow, azNow);
     if (!c) throw unreachable("a link", "under combined heave and roll");
     const wc: WorstCombined = { travel: c.travel, rollDeg: c.rollDeg, wheelSteerDeg: wheelSteerDeg(c.d, r, "under combined heave and roll"), dragLinkError: c.d };
     result.worst.combined = wc;
@@ -596,13 +547,13 @@ export function computeSteeringGeometry(input: SteeringInput): SteeringResult {
   // The optimum on each end's hole line: same measure as the answer's heave and roll lists.
   const optimumOf = (end: "axle" | "frame"): OptimumResult => {
     const hint = end === "axle" ? (A.y !== F.y ? F.z + slope * (A.y - F.y) : undefined) : F.y !== A.y ? A.z - slope * (A.y - F.y) : undefined;
-    const o = findOptimum(end, F, A, C, drag, r, travels, table, hint);
+    const o = findOptimum(end, F, A, C, drag, r, heaveM, table, hint);
     const J = end === "axle" ? { y: A.y, z: o.z } : { y: F.y, z: o.z };
     const ol = end === "axle" ? makeLink(F, J, "lateral link") : makeLink(J, A, "lateral link");
     const az = (end === "axle" ? o.z : A.z) - C.z;
-    const dh = heaveWorstD(ol.ey, ol.ez, ol.l2, ol.sgn, drag, travels);
-    const dr = table ? rollWorstD(ol.ey, ol.ez, ol.l2, ol.sgn, drag, table, ayNow, az) : Number.NaN;
-    const dc = table && combinedOn ? combinedWorst(ol.ey, ol.ez, ol.l2, ol.sgn, drag, travels, table, ayNow, az) : null;
+    const dh = worstOver(ol.ey, ol.ez, ol.l2, ol.sgn, drag, heaveM, ayNow, az).d;
+    const dr = table ? worstOver(ol.ey, ol.ez, ol.l2, ol.sgn, drag, table, ayNow, az).d : Number.NaN;
+    const dc = table && combinedOn ? combinedWorst(ol.ey, ol.ez, ol.l2, ol.sgn, drag, heaveM, table, ayNow, az) : null;
     const steerOrNull = (d: number) => (d === d && Math.abs(d) <= r ? Math.asin(d / r) * DEG : null);
     const currentWorst = Math.max(Math.abs(worstHeave.wheelSteerDeg), wr ? Math.abs(wr.wheelSteerDeg) : 0);
     return {
@@ -629,17 +580,21 @@ export function computeSteeringGeometry(input: SteeringInput): SteeringResult {
       const hl = atFrame
         ? makeLink(hole, A, `lateral link with hole ${hole.label}`)
         : makeLink(F, hole, `lateral link with hole ${hole.label}`);
-      const d = worstHeaveError(hl, drag, travels, hole.label);
-      const heaveSteer = wheelSteerDeg(d, r, `with hole ${hole.label}`);
       const az = (atFrame ? A.z : hole.z) - C.z;
       const ay = (atFrame ? A.y : hole.y) - C.y;
+      const wh = worstOver(hl.ey, hl.ez, hl.l2, hl.sgn, drag, heaveM, ay, az);
+      if (wh.fail) {
+        const name = wh.fail === "lateral link" ? `lateral link with hole ${hole.label}` : "drag link";
+        throw unreachable(name, `at travel ${fmt(travels[wh.i]!, "mm")}${wh.fail === "drag link" ? ` (hole ${hole.label})` : ""}`);
+      }
+      const heaveSteer = wheelSteerDeg(wh.d, r, `with hole ${hole.label}`);
       let rollSteer: number | null = null;
       let combSteer: number | null = null;
       if (table) {
-        const dr = rollWorstD(hl.ey, hl.ez, hl.l2, hl.sgn, drag, table, ay, az);
+        const dr = worstOver(hl.ey, hl.ez, hl.l2, hl.sgn, drag, table, ay, az).d;
         rollSteer = dr === dr && Math.abs(dr) <= r ? Math.asin(dr / r) * DEG : null;
         if (combinedOn) {
-          const dc = combinedWorst(hl.ey, hl.ez, hl.l2, hl.sgn, drag, travels, table, ay, az);
+          const dc = combinedWorst(hl.ey, hl.ez, hl.l2, hl.sgn, drag, heaveM, table, ay, az);
           combSteer = dc && Math.abs(dc.d) <= r ? Math.asin(dc.d / r) * DEG : null;
         }
       }
