@@ -11,8 +11,13 @@ import { startNext, startStack, waitForHttp } from "./lib/stack";
 
 const root = path.resolve(import.meta.dirname, "..");
 const bin = (name: string) => path.join(root, "node_modules/.bin", name);
-const only = process.argv.slice(2); // e.g. `npm test -- e2e` runs one stage after the static checks
+// `npm test -- e2e` runs one stage after the static checks; a path among the arguments
+// (`npm test -- e2e tests/e2e/weight.spec.ts`) narrows the stage's runner to the files it names.
+const args = process.argv.slice(2);
+const only = args.filter((a) => !a.includes("/"));
+const files = args.filter((a) => a.includes("/"));
 const runStage = (name: string) => only.length === 0 || only.includes(name);
+const filesFor = (dir: string) => files.filter((f) => f.includes(dir));
 
 type Count = { passed: number; failed: number; skipped: number };
 const totals: Record<string, Count> = {};
@@ -60,7 +65,7 @@ async function main() {
   }
   if (runStage("unit")) {
     const unitJson = path.join(reports, "unit.json");
-    const code = await run("unit", bin("vitest"), ["run", "--project", "unit", "--reporter=default", "--reporter=json", `--outputFile.json=${unitJson}`]);
+    const code = await run("unit", bin("vitest"), ["run", "--project", "unit", "--reporter=default", "--reporter=json", `--outputFile.json=${unitJson}`, ...filesFor("tests/unit")]);
     readVitest(unitJson, "unit");
     if (code !== 0) failures.push("unit tests");
   }
@@ -98,14 +103,14 @@ async function main() {
       await waitForHttp(`${testEnv.GUSSET_TEST_URL}/api/health`, 90_000);
       if (runStage("integration")) {
         const json = path.join(reports, "integration.json");
-        const code = await run("integration", bin("vitest"), ["run", "--project", "integration", "--reporter=default", "--reporter=json", `--outputFile.json=${json}`], testEnv);
+        const code = await run("integration", bin("vitest"), ["run", "--project", "integration", "--reporter=default", "--reporter=json", `--outputFile.json=${json}`, ...filesFor("tests/integration")], testEnv);
         readVitest(json, "integration");
         if (code !== 0) failures.push("integration tests");
       }
       if (runStage("e2e")) {
         ensureChromium();
         const json = path.join(reports, "e2e.json");
-        const code = await run("e2e", bin("playwright"), ["test"], { ...testEnv, PLAYWRIGHT_JSON_OUTPUT_NAME: json });
+        const code = await run("e2e", bin("playwright"), ["test", ...filesFor("tests/e2e")], { ...testEnv, PLAYWRIGHT_JSON_OUTPUT_NAME: json });
         readPlaywright(json);
         if (code !== 0) failures.push("browser tests");
       }

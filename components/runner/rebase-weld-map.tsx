@@ -1,11 +1,17 @@
 "use client";
 // Moves the job's weld map onto a photo of this axle: take the photo here, then tap each joint where it is
 // on it (the markers start where the procedure's map had them). Sealed with the job when it is released.
+import dynamic from "next/dynamic";
 import { useState } from "react";
-import { WeldMapEditor, type EditorSave } from "@/components/weld-map/weld-map-editor";
+import type { EditorSave } from "@/components/weld-map/weld-map-editor";
 import type { JobRecord } from "@/lib/jobs/record";
 import { apiJson, ApiError, newKey, uploadPhoto } from "./api";
 import { useSetRecord } from "./use-job";
+
+// The editor only comes down once there is a photo to place the joints on: most welders never open it.
+const WeldMapEditor = dynamic(() => import("@/components/weld-map/weld-map-editor").then((m) => m.WeldMapEditor), {
+  loading: () => <p role="status">Opening the editor…</p>,
+});
 
 export function RebaseWeldMap({ record }: { record: JobRecord }) {
   const setRecord = useSetRecord(record.job.id);

@@ -10,7 +10,7 @@ import { waitingHold } from "@/lib/jobs/state";
 import type { JobRecord, StepView } from "@/lib/jobs/record";
 import { kindGlyph } from "./glyph";
 import { StepPanel } from "./step-panel";
-import { jointStateWord } from "./weld-control";
+import { jointStateWord } from "./joint-state";
 import { useJob } from "./use-job";
 
 function stepStatus(s: StepView, record: JobRecord): { word: string; shape: string; cls: string } {

@@ -24,10 +24,11 @@ import { useStepDraft, type SaveState } from "./use-step-draft";
 import { Pill, VerdictBox } from "./verdict";
 import { HandOverPicker } from "./hand-over";
 import { StepBar } from "./step-bar";
-import { JointStatePill, WeldControl } from "./weld-control";
+import { JointStatePill } from "./joint-state";
 
-// Controls of the rarer step kinds, the inspection form (with the zod check it runs) and the nonconformance
-// forms load when a step needs them, keeping the runner's first load light on a shop tablet.
+// The weld, coating and geometry controls, the inspection form (with the zod check it runs) and the
+// nonconformance forms load when a step needs them, keeping the runner's first load light on a shop tablet.
+const WeldControl = dynamic(() => import("./weld-control").then((m) => m.WeldControl));
 const InspectionPanel = dynamic(() => import("./inspection-panel").then((m) => m.InspectionPanel));
 const CoatingControl = dynamic(() => import("./coating-control").then((m) => m.CoatingControl));
 const GeometryControl = dynamic(() => import("./geometry-control").then((m) => m.GeometryControl));

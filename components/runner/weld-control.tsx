@@ -14,10 +14,11 @@ import { PinDialog } from "./pin-dialog";
 import { RebaseWeldMap } from "./rebase-weld-map";
 import { RepairForm } from "./repair-form";
 import { useSetRecord } from "./use-job";
+import { JointStatePill } from "./joint-state";
 import { Pill } from "./verdict";
-import { coverageOf, failedMessages, HotWorkNote, InspectionResult, JointStatePill, PassCard, PerformedLine, QualificationBox, roundName, roundTone, type Weld, WpsPanel, wpsOf } from "./weld-parts";
+import { coverageOf, failedMessages, HotWorkNote, InspectionResult, PassCard, PerformedLine, QualificationBox, roundName, roundTone, type Weld, WpsPanel, wpsOf } from "./weld-parts";
 
-export { coverageOf, ITEM_LABELS, jointStateWord, JointStatePill, PassCard, wpsOf, type Weld } from "./weld-parts";
+export { coverageOf, ITEM_LABELS, PassCard, wpsOf, type Weld } from "./weld-parts";
 
 export function WeldControl({ record, step, jobOpen }: { record: JobRecord; step: StepView; jobOpen: boolean }) {
   const spec = step.spec as Weld;

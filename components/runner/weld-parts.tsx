@@ -2,7 +2,6 @@
 // The read side of a weld step: the joint's state, the WPS revision its passes are checked against, the
 // welder's qualification, the passes as cards and the inspection results of its rounds.
 import { HOT_WORK_CAUTIONS } from "@/components/safety-cautions";
-import { JOINT_STATE_LABELS } from "@/lib/jobs/joint";
 import type { InspectionView, JobRecord, JointRound, JointView, PassView, PhotoView, QualificationSummary, SignOffView, WpsSummary } from "@/lib/jobs/record";
 import { show } from "@/lib/jobs/units";
 import type { Step } from "@/lib/procedures/schema";
@@ -40,18 +39,6 @@ export function HotWorkNote() {
       </ul>
     </section>
   );
-}
-
-// --- Joint state --------------------------------------------------------------------------------------
-
-const STATE_TONE: Record<JointView["state"], VerdictTone> = { welding: "idle", awaiting_inspection: "wait", repair: "fail", accepted: "pass" };
-
-export function jointStateWord(joint: Pick<JointView, "state" | "round">): string {
-  return joint.state === "repair" ? `Repair round ${joint.round}` : JOINT_STATE_LABELS[joint.state];
-}
-
-export function JointStatePill({ joint, testId }: { joint: Pick<JointView, "state" | "round">; testId?: string }) {
-  return <Pill tone={STATE_TONE[joint.state]} testId={testId}>{jointStateWord(joint)}</Pill>;
 }
 
 /** The published WPS revision a weld step is checked against, or undefined when the library has none. */

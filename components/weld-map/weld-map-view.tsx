@@ -1,7 +1,7 @@
 // A weld map drawn on screen: each image once, each joint's marker over it (shape by state, labelled with
 // its joint id and state word, so colour is never the only sign). Tapping the image reports where, in
 // image-relative coordinates, for the editors.
-import { markerShapePath, MARKER_LOOK, relativePoint, seamPath, type MapPoint, type MarkerState } from "@/lib/weld-map";
+import { markerShapePath, MARKER_LOOK, relativePoint, seamPath, type MapPoint, type MarkerState } from "@/lib/weld-map/marker";
 
 export type MapImage = { id: string; url: string; width: number; height: number; label?: string };
 export type MapMarker = { jointId: string; imageId: string; x: number; y: number; path?: MapPoint[] | undefined };

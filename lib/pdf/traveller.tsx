@@ -9,7 +9,7 @@ import { formatInstant, formatNumber, printableLines, formatSigned, groupHex, pr
 import { GeometryDiagrams, SteeringWheelChart } from "./geometry-diagram";
 import { Mark, Verdict, type MarkShape, type VerdictKind } from "./marks";
 import { makeQr, type TravellerQr } from "./qr";
-import { markerShapePath, MARKER_LOOK, seamPath, type MarkerState } from "@/lib/weld-map";
+import { markerShapePath, MARKER_LOOK, seamPath, type MarkerState } from "@/lib/weld-map/marker";
 import { COLOR, MARGIN, MIN_TEXT_PT, s } from "./theme";
 import { parseTravellerData, type TravellerData, type TravellerJointState, type TravellerRecord, type TravellerJobState, type TravellerStepKind } from "./traveller-data";
 

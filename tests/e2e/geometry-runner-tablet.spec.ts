@@ -77,7 +77,7 @@ async function measure(page: Page, entries: Record<string, Entry>) {
   await page.getByTestId("st-travel-droop").fill("100 mm");
 }
 
-async function signWithPin(page: Page) {
+async function signWithPin(page: Page, signedAfter: number) {
   await expect(page.getByTestId("save-state")).toHaveText(/Saved/);
   await page.getByTestId("sign-step").tap();
   const dialog = page.getByTestId("pin-dialog");
@@ -85,7 +85,7 @@ async function signWithPin(page: Page) {
   for (const d of DEMO_PIN) await dialog.getByTestId("pin-pad").getByRole("button", { name: d, exact: true }).tap();
   await dialog.getByTestId("pin-submit").tap();
   await expect(dialog).toBeHidden();
-  await expect(page.getByTestId("step-status")).toHaveText(/Signed/);
+  await expect(page.getByTestId("runner-progress")).toHaveText(`${signedAfter} of 2 signed`);
 }
 
 const steer = (input: SteeringInput) => computeSteeringGeometry(input).worst.heave;
@@ -127,7 +127,7 @@ test("a welder captures before and after from floor measurements and signs them;
   expect(small).toEqual([]);
   expect(await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth)).toBeLessThanOrEqual(0);
   await page.getByTestId("geometry-capture").screenshot({ path: `.data/screens-${process.env.TEST_APP_PORT ?? "3100"}/runner-geometry.png` });
-  await signWithPin(page);
+  await signWithPin(page, 1);
 
   // Stored as front-view coordinates from the floor and the centre line, as every geometry value is.
   const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
@@ -154,16 +154,20 @@ test("a welder captures before and after from floor measurements and signs them;
     await db.end();
   }
 
-  // The signed step shows the joints as measured, sides by word.
+  // The runner has moved on to the after step; back on the before step, the signed step shows the joints as
+  // measured, sides by word.
+  await expect(page.getByRole("heading", { name: /Geometry after/ })).toBeVisible();
+  await page.getByTestId("prev-step").tap();
+  await expect(page.getByTestId("step-status")).toHaveText(/Signed/);
   await expect(page.getByTestId("geometry-summary")).toContainText("driver's side");
-  await page.getByTestId("next-after-sign").tap();
+  await page.getByTestId("next-step").tap();
 
   await expect(page.getByRole("heading", { name: /Geometry after/ })).toBeVisible();
   await measure(page, AFTER);
   const after = steer(beforeInput(540));
   await expect(page.getByTestId("geometry-results")).toContainText(`Worst bump steer ${after.wheelSteerDeg.toFixed(2)}°`);
-  await signWithPin(page);
-  await expect(page.getByTestId("runner-progress")).toHaveText("2 of 2 signed");
+  await signWithPin(page, 2);
+  await expect(page.getByTestId("step-status")).toHaveText(/Signed/);
 
   // The lead's view of the job: before and after side by side, one chart, and the road-test note.
   const lead = await browser.newContext({ viewport: { width: 1024, height: 768 }, hasTouch: true });

@@ -148,7 +148,8 @@ test("a lead places two joints by tapping; the welder's runner and the inspector
   await expect(welder.getByTestId("save-state")).toHaveText(/Saved/);
   await welder.getByTestId("sign-step").tap();
   await enterPin(welder);
-  await expect(welder.getByTestId("step-status")).toHaveText(/Signed/);
+  // Signed, and the runner moves on to the next step by itself.
+  await expect(welder.getByTestId("runner-progress")).toHaveText(/^1 of \d+ signed$/);
   await welder.goto(`${httpsUrl.origin}/run/${jobId}?step=w1`);
   const map = welder.getByTestId("runner-weld-map");
   await expect(map).toBeVisible();
@@ -172,8 +173,12 @@ test("a lead places two joints by tapping; the welder's runner and the inspector
   await expect(welder.getByTestId("round-1").getByTestId("pass-1")).toBeVisible();
   await welder.getByTestId("sign-step").tap();
   await enterPin(welder);
-  await expect(welder.getByTestId("step-status")).toHaveText(/Waiting for inspection/);
+  // The runner moves on to W2, whose map shows W1 waiting; back on W1 the step says so too.
   await expect(map.getByTestId("runner-weld-map-joint-W1")).toContainText("◆W1waiting for inspection");
+  await expect(map.getByTestId("runner-weld-map-joint-W2")).toContainText("(this step)");
+  await welder.goto(`${httpsUrl.origin}/run/${jobId}?step=w1`);
+  await expect(welder.getByTestId("step-status")).toHaveText(/Waiting for inspection/);
+  await expect(map.getByTestId("runner-weld-map-joint-W1")).toContainText("◆W1waiting for inspection(this step)");
 
   // --- Inspector: the form shows where the joint is ---
   const inspector = await tablet(browser, "inspector@irongully.example");

@@ -3,7 +3,8 @@
 import { describe, expect, it } from "vitest";
 import { versionHash } from "@/lib/procedures/hash";
 import { versionContentSchema } from "@/lib/procedures/schema";
-import { procedureWeldMapSchema, relativePoint, sealedWeldMap, unplacedJoints } from "@/lib/weld-map";
+import { procedureWeldMapSchema, sealedWeldMap, unplacedJoints } from "@/lib/weld-map";
+import { relativePoint } from "@/lib/weld-map/marker";
 
 const imageId = "6f1c2a3b-4d5e-4f60-8a7b-9c0d1e2f3a4b";
 const image = { id: imageId, sha256: "b".repeat(64), width: 1600, height: 1200, source: "drawing" as const, label: "" };
